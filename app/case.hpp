@@ -1,0 +1,30 @@
+#pragma once
+// A case: everything one run needs, read and validated from a TOML case file.
+// Plain data in SI units; nothing after the reader touches the file again.
+
+#include <string>
+
+#include "mesh/geometry.hpp"
+#include "mesh/winding_spec.hpp"
+#include "post/study.hpp"
+#include "solver/materials.hpp"
+#include "solver/supply.hpp"
+
+namespace tf::app {
+
+/// The study's steps and sampling (post/study.hpp).
+using Study = post::StudyPlan;
+
+struct Case {
+  std::string path;   ///< the case file, as given
+  std::string title;  ///< free text for reports
+  double stack_length = 0.1;  ///< [m]; per-metre results are multiplied by it where said
+  mesh::Geometry geometry;
+  mesh::WindingSpec winding;
+  solver::Materials materials;
+  solver::Supply supply;
+  Study study;
+  mesh::MeshControls mesh;
+};
+
+}  // namespace tf::app

@@ -1,0 +1,17 @@
+#pragma once
+// Reading a case file (TOML) into a Case. The keys, their units and ranges are listed in
+// case_reader.cpp beside the code that reads them; cases/ holds complete examples.
+
+#include <string>
+
+#include "app/case.hpp"
+
+namespace tf::app {
+
+/// Reads and validates the case file at `path` (kept exactly as given, for messages and Case::path).
+/// Throws InputError when the file is missing or unreadable, is not valid TOML, holds an unknown
+/// or misspelt key, lacks a required key, has a value of the wrong type or out of range, or
+/// describes a geometry or winding that does not fit together. The message names file and line.
+Case read_case(const std::string& path);
+
+}  // namespace tf::app

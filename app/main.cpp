@@ -1,0 +1,95 @@
+// turnfield command line: check, winding, mesh, run.
+// Exit status: 0 success, 2 bad input (case file or command line), 1 failure while meshing,
+// solving or writing.
+
+#include <algorithm>
+#include <filesystem>
+#include <iostream>
+
+#include <CLI/CLI.hpp>
+
+#include "app/case_reader.hpp"
+#include "app/input_error.hpp"
+#include "app/run_case.hpp"
+#include "app/winding_report.hpp"
+#include "mesh/mesh.hpp"
+#include "post/atomic_file.hpp"
+#include "solver/errors.hpp"
+
+namespace {
+
+namespace fs = std::filesystem;
+
+fs::path default_out_dir(const std::string& case_path) { return fs::path("results") / fs::path(case_path).stem(); }
+
+template <class Action>
+int guarded(Action action) {
+  try {
+    action();
+    return 0;
+  } catch (const tf::app::InputError& e) {
+    std::cerr << "error: " << e.what() << '\n';
+    return 2;
+  } catch (const tf::mesh::MeshError& e) {
+    std::cerr << "mesh error: " << e.what() << '\n';
+  } catch (const tf::solver::SolveError& e) {
+    std::cerr << "solver error: " << e.what() << '\n';
+  } catch (const tf::post::OutputError& e) {
+    std::cerr << "output error: " << e.what() << '\n';
+  } catch (const std::exception& e) {
+    std::cerr << "error: " << e.what() << '\n';
+  }
+  return 1;
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+  CLI::App cli{"turnfield: rotating-field analysis of AC machine stators by 2D finite elements"};
+  cli.set_version_flag("--version", tf::app::kVersion);
+  cli.require_subcommand(1);
+  std::string case_path, out_dir;
+  bool as_json = false, all_steps = false;
+  double fineness = 0.0;  // 0: as the case file says
+  int field_files = -1;   // -1: as the case file says
+
+  auto* check = cli.add_subcommand("check", "validate a case file without solving");
+  check->add_option("CASE", case_path, "case file (TOML)")->required();
+  auto* winding = cli.add_subcommand("winding", "print the slot table and winding factors");
+  winding->add_option("CASE", case_path, "case file (TOML)")->required();
+  winding->add_flag("--json", as_json, "print JSON instead of text");
+  auto* mesh = cli.add_subcommand("mesh", "mesh the cross-section and write mesh.vtu with region ids");
+  mesh->add_option("CASE", case_path, "case file (TOML)")->required();
+  mesh->add_option("--out", out_dir, "output folder (default results/<case name>/mesh)");
+  mesh->add_option("--fineness", fineness, "override the case's mesh fineness")->check(CLI::Range(0.1, 20.0));
+  auto* run = cli.add_subcommand("run", "solve the phase-angle study and write the results");
+  run->add_option("CASE", case_path, "case file (TOML)")->required();
+  run->add_option("--out", out_dir, "output folder (default results/<case name>)");
+  run->add_flag("--all-steps", all_steps, "write a field file for every step");
+  run->add_option("--field-files", field_files, "override the number of steps written as VTU files (0: none)")
+      ->check(CLI::Range(0, 1000000));
+  run->add_option("--fineness", fineness, "override the case's mesh fineness")->check(CLI::Range(0.1, 20.0));
+
+  try {
+    cli.parse(argc, argv);
+  } catch (const CLI::ParseError& e) {
+    const int code = cli.exit(e);
+    return code == 0 ? 0 : 2;
+  }
+
+  return guarded([&] {
+    tf::app::Case c = tf::app::read_case(case_path);
+    if (fineness > 0.0) c.mesh.fineness = fineness;
+    if (field_files >= 0) c.study.n_field_files = std::min(field_files, c.study.n_steps);
+    if (check->parsed()) {
+      std::cout << case_path << ": valid (" << c.title << ")\n";
+    } else if (winding->parsed()) {
+      tf::app::print_winding(c, as_json, std::cout);
+    } else if (mesh->parsed()) {
+      tf::app::mesh_case(c, out_dir.empty() ? default_out_dir(case_path) / "mesh" : fs::path(out_dir), std::cout);
+    } else {
+      tf::app::RunOptions options{out_dir.empty() ? default_out_dir(case_path) : fs::path(out_dir), all_steps};
+      tf::app::run_case(c, options, std::cout);
+    }
+  });
+}

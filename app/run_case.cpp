@@ -1,0 +1,145 @@
+#include "app/run_case.hpp"
+
+#include <chrono>
+#include <cmath>
+#include <numbers>
+#include <sstream>
+
+#include <fmt/format.h>
+
+#include "app/case_json.hpp"
+#include "app/progress.hpp"
+#include "mesh/build.hpp"
+#include "mesh/winding.hpp"
+#include "post/atomic_file.hpp"
+#include "post/study.hpp"
+#include "post/summary.hpp"
+#include "post/tables.hpp"
+#include "post/vtu.hpp"
+#include "solver/phase_fields.hpp"
+
+namespace tf::app {
+namespace {
+
+namespace fs = std::filesystem;
+using Clock = std::chrono::steady_clock;
+
+double seconds_since(Clock::time_point t) { return std::chrono::duration<double>(Clock::now() - t).count(); }
+
+void prepare_folder(const fs::path& dir) {
+  std::error_code ec;
+  fs::create_directories(dir, ec);
+  if (ec) throw post::OutputError("could not create the output folder " + dir.string() + ": " + ec.message());
+  // A summary left from an earlier run would mark a half-rewritten folder as complete.
+  fs::remove(dir / "summary.json", ec);
+}
+
+/// VTU files for the chosen steps and the .pvd collection that lists them; returns file names.
+std::vector<std::string> write_field_files(const fs::path& dir, const mesh::Mesh& m, const solver::PhaseFields& f,
+                                           const post::StudyResult& r, const std::vector<int>& steps,
+                                           double frequency, Progress& progress) {
+  std::vector<post::CollectionEntry> entries;
+  std::vector<std::string> files;
+  for (std::size_t i = 0; i < steps.size(); ++i) {
+    progress.count("writing field files", static_cast<int>(i), static_cast<int>(steps.size()));
+    const post::StepResult& s = r.steps[steps[i]];
+    const std::string name = fmt::format("field_{:04d}.vtu", steps[i]);
+    post::write_field_vtu(dir / name, m, solver::superpose(f, s.currents));
+    entries.push_back({s.electrical_angle / (2 * std::numbers::pi * frequency), name});
+    files.push_back(name);
+  }
+  post::write_collection(dir / "field.pvd", entries);
+  files.push_back("field.pvd");
+  return files;
+}
+
+void print_summary(std::ostream& out, const Case& c, const mesh::Winding& w, const post::StudyResult& r,
+                   const fs::path& dir) {
+  const post::RotationMetrics& x = r.metrics;
+  const auto k = mesh::winding_factors(w, 1)[0];
+  out << fmt::format("{}\n", c.title);
+  out << fmt::format("  {} slots, {} poles, {} phases, q = {}, winding factor {:.4f} (distribution {:.4f} x pitch {:.4f})\n",
+                     c.geometry.stator.n_slots, c.winding.n_poles, c.winding.n_phases, w.slots_per_pole_per_phase(),
+                     k.total, k.distribution, k.pitch);
+  out << fmt::format("  air-gap B_r fundamental   {:.4f} T   amplitude ripple {:.3f} %\n", x.mean_fundamental,
+                     100 * x.amplitude_ripple);
+  out << fmt::format("  peak |B_r|                {:.4f} .. {:.4f} T   peak-field ripple {:.2f} %\n", x.min_peak,
+                     x.max_peak, 100 * x.peak_ripple);
+  out << fmt::format("  rotation                  {:.3f} deg per step expected, worst deviation {:.3f} deg\n",
+                     x.expected_step_deg, x.rotation_uniformity_deg);
+  out << fmt::format("  backward/forward ratio    {:.4f}   harmonic distortion {:.2f} %\n", x.backward_forward_ratio,
+                     100 * x.mean_distortion);
+  out << fmt::format("  results in {}\n", dir.string());
+  out << "  " << post::kSafetyCaution << "\n";
+}
+
+}  // namespace
+
+void run_case(const Case& c, const RunOptions& options, std::ostream& out) {
+  Progress progress;
+  post::RunRecord record;
+  auto t = Clock::now();
+  progress.stage("meshing");
+  const mesh::Mesh m = mesh::build(c.geometry, c.winding.n_layers, c.mesh);
+  const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator.n_slots);
+  record.seconds.push_back({"mesh", seconds_since(t)});
+
+  progress.stage(fmt::format("solving {} phase fields", c.winding.n_phases));
+  const solver::PhaseFields fields = solve_phase_fields(m, w, c.materials);
+  record.stats = fields.stats;
+  record.seconds.push_back({"assemble", fields.stats.assemble_seconds});
+  record.seconds.push_back({"analyse", fields.stats.analyse_seconds});
+  record.seconds.push_back({"factorize", fields.stats.factorize_seconds});
+  record.seconds.push_back({"solve", fields.stats.solve_seconds});
+
+  t = Clock::now();
+  progress.stage("post-processing");
+  const post::StudyResult r = post::phase_sweep(m, w, fields, c.supply, c.study);
+  record.seconds.push_back({"post", seconds_since(t)});
+
+  t = Clock::now();
+  const fs::path& dir = options.out_dir;
+  prepare_folder(dir);
+  post::write_steps_table(dir / "steps.csv", r, c.supply.frequency);
+  post::write_gap_table(dir / "gap_field.csv", r);
+  post::write_harmonics_table(dir / "harmonics.csv", r, c.winding.pole_pairs());
+  post::write_winding_tables(dir, w, 13);
+  record.files = {"steps.csv", "gap_field.csv", "harmonics.csv", "winding.csv", "winding_factors.csv"};
+  const int n_files = options.all_field_files ? c.study.n_steps : c.study.n_field_files;
+  if (n_files > 0) {
+    const auto vtu = write_field_files(dir, m, fields, r, post::field_file_steps(c.study.n_steps, n_files),
+                                       c.supply.frequency, progress);
+    record.files.insert(record.files.end(), vtu.begin(), vtu.end());
+  }
+  record.seconds.push_back({"write", seconds_since(t)});
+  progress.finish();
+
+  record.version = kVersion;
+  record.inputs_json = case_to_json(c);
+  record.mesh = &m;
+  record.winding = &w;
+  record.study = &r;
+  post::write_summary(dir / "summary.json", record);
+  print_summary(out, c, w, r, dir);
+}
+
+void mesh_case(const Case& c, const fs::path& out_dir, std::ostream& out) {
+  Progress progress;
+  progress.stage("meshing");
+  const mesh::Mesh m = mesh::build(c.geometry, c.winding.n_layers, c.mesh);
+  progress.finish();
+  std::error_code ec;
+  fs::create_directories(out_dir, ec);
+  if (ec) throw post::OutputError("could not create the output folder " + out_dir.string() + ": " + ec.message());
+  post::write_mesh_vtu(out_dir / "mesh.vtu", m);
+  const std::vector<double> area = mesh::region_areas(m);
+  post::write_atomically(out_dir / "regions.csv", [&](std::ostream& o) {
+    o << "region,name,area_m2\n";
+    for (std::size_t i = 0; i < m.regions.size(); ++i) o << i << ',' << m.regions[i].name << ',' << area[i] << '\n';
+  });
+  out << fmt::format("{} nodes, {} triangles, {} regions, {} nodes on the sliding circle\n", m.n_nodes(),
+                     m.n_triangles(), m.regions.size(), m.sliding.stator_nodes.size());
+  out << fmt::format("wrote {} and {}\n", (out_dir / "mesh.vtu").string(), (out_dir / "regions.csv").string());
+}
+
+}  // namespace tf::app

@@ -1,0 +1,25 @@
+#pragma once
+// The whole path of one case: case -> mesh -> solve -> post -> files.
+
+#include <filesystem>
+#include <ostream>
+
+#include "app/case.hpp"
+
+namespace tf::app {
+
+inline constexpr const char* kVersion = "0.1.0";
+
+struct RunOptions {
+  std::filesystem::path out_dir;
+  bool all_field_files = false;  ///< a VTU file for every step instead of study.field_files
+};
+
+/// Runs the case and writes its result folder; prints a short human summary to `out`.
+/// Throws mesh::MeshError, solver::SolveError or post::OutputError.
+void run_case(const Case& c, const RunOptions& options, std::ostream& out);
+
+/// Meshes the case and writes mesh.vtu (region ids) and regions.csv to out_dir.
+void mesh_case(const Case& c, const std::filesystem::path& out_dir, std::ostream& out);
+
+}  // namespace tf::app

@@ -1,0 +1,49 @@
+#include "mesh/build.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <numbers>
+
+#include "mesh/gmsh_session.hpp"
+#include "mesh/replicate.hpp"
+#include "mesh/sector.hpp"
+
+namespace tf::mesh {
+namespace {
+
+constexpr double kPi = std::numbers::pi;
+// The rotor is cut into this many sectors: few enough that the slice at the centre is not a sliver.
+constexpr int kRotorSectors = 4;
+
+}  // namespace
+
+ElementSizes element_sizes(const Geometry& g, const MeshControls& c) {
+  const StatorGeometry& s = g.stator;
+  const double across_gap = 4.0 * std::max(1.0, c.fineness);
+  const double slot_pitch = 2 * kPi * s.bore_radius / s.n_slots;
+  const double largest = std::min({slot_pitch / 3.0, s.slot.width / 2.0, (s.outer_radius - s.bore_radius) / 6.0}) / c.fineness;
+  return {g.gap_length() / across_gap, largest, 0.25};
+}
+
+Mesh build(const Geometry& g, int n_layers, const MeshControls& c) {
+  const ElementSizes h = element_sizes(g, c);
+  const double r_slide = g.mid_gap_radius();
+  const double half_gap = 0.5 * g.gap_length();
+  // Elements are smallest in the gap and grow with the distance from it, up to the largest size.
+  const detail::SizeRule size = [h, r_slide, half_gap](double x, double y) {
+    const double away = std::max(0.0, std::abs(std::hypot(x, y) - r_slide) - half_gap);
+    return std::min(h.largest, h.gap + h.grading * away);
+  };
+  const int n_slots = g.stator.n_slots;
+  int per_slot = std::max(2, static_cast<int>(std::ceil(2 * kPi * r_slide / n_slots / h.gap)));
+  while ((n_slots * per_slot) % kRotorSectors != 0) ++per_slot;
+  const int n_sliding = n_slots * per_slot;
+
+  detail::GmshSession session;
+  const detail::SectorMesh stator = detail::mesh_stator_sector(g, n_layers, per_slot, size);
+  const detail::SectorMesh rotor =
+      detail::mesh_rotor_sector(g, kRotorSectors, stator.start_angle, n_sliding / kRotorSectors, size);
+  return detail::replicate(g, stator, n_slots, rotor, kRotorSectors);
+}
+
+}  // namespace tf::mesh

@@ -1,0 +1,22 @@
+#pragma once
+// From parameters to the mesh of the whole cross-section.
+
+#include "mesh/geometry.hpp"
+#include "mesh/mesh.hpp"
+
+namespace tf::mesh {
+
+/// Element sizes [m] that follow from the geometry and the fineness knob.
+struct ElementSizes {
+  double gap;       ///< in the air gap: at least four elements across it
+  double largest;   ///< far from the gap, in the yoke and the rotor
+  double grading;   ///< growth of the size per metre of distance from the gap [-]
+};
+ElementSizes element_sizes(const Geometry& g, const MeshControls& c);
+
+/// Meshes one stator slot pitch and one rotor sector with Gmsh and copies them round by rotation,
+/// merging the nodes on the cuts: every slot gets the identical mesh. n_layers is the number of
+/// coil layers each slot is split into. Throws MeshError.
+Mesh build(const Geometry& g, int n_layers, const MeshControls& c);
+
+}  // namespace tf::mesh

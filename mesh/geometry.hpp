@@ -1,0 +1,54 @@
+#pragma once
+// Parametric cross-section of a stator and its rotor. Plain data, SI units (m).
+// Angles: slot 1 is centred on the +x axis; slots are numbered counter-clockwise.
+
+namespace tf::mesh {
+
+enum class SlotShape {
+  open,         ///< parallel-sided slot open over its full width to the air gap
+  semi_closed,  ///< parallel-sided body behind tooth tips that leave a narrower opening
+};
+
+/// One stator slot, measured along its centre line from the bore.
+struct Slot {
+  SlotShape shape = SlotShape::open;
+  double width = 0.0;          ///< body width between the parallel walls [m]
+  double depth = 0.0;          ///< bore to slot bottom, on the slot centre line [m]
+  double opening_width = 0.0;  ///< semi-closed: width of the opening between the tooth tips [m]
+  double tip_height = 0.0;     ///< semi-closed: radial height of the tooth tips [m]
+  double wedge_height = 0.0;   ///< semi-closed: air between the tips and the coil [m]
+};
+
+struct StatorGeometry {
+  double bore_radius = 0.0;   ///< [m]
+  double outer_radius = 0.0;  ///< [m], A = 0 is imposed here
+  int n_slots = 0;
+  Slot slot;
+};
+
+enum class RotorKind {
+  none,  ///< no rotor: the bore is filled with air
+  iron,  ///< smooth solid iron cylinder on a shaft
+};
+
+struct RotorGeometry {
+  RotorKind kind = RotorKind::iron;
+  double outer_radius = 0.0;  ///< [m]; with no rotor, the inner edge of the gap band that is sampled
+  double shaft_radius = 0.0;  ///< [m]; 0 for no separate shaft
+};
+
+struct Geometry {
+  StatorGeometry stator;
+  RotorGeometry rotor;
+
+  double gap_length() const { return stator.bore_radius - rotor.outer_radius; }
+  /// The sliding circle, where the air-gap field is sampled: the middle of the gap.
+  double mid_gap_radius() const { return 0.5 * (stator.bore_radius + rotor.outer_radius); }
+};
+
+/// One knob for the element sizes: 1 is the default, 2 halves every element size.
+struct MeshControls {
+  double fineness = 1.0;
+};
+
+}  // namespace tf::mesh

@@ -1,0 +1,68 @@
+#pragma once
+// The mesh of a whole cross-section: first-order triangles, each tagged with a named region.
+
+#include <stdexcept>
+#include <string>
+#include <vector>
+
+#include <Eigen/Core>
+
+namespace tf::mesh {
+
+/// Geometry or meshing failed; the message names the region or entity and the likely cause.
+struct MeshError : std::runtime_error {
+  using std::runtime_error::runtime_error;
+};
+
+enum class RegionKind {
+  stator_iron,
+  rotor_iron,
+  shaft,
+  coil,      ///< one layer of one slot: a coil side
+  slot_air,  ///< slot opening and wedge space, no current
+  gap,       ///< air gap, stator or rotor side of the sliding circle
+  bore_air,  ///< air filling the bore when there is no rotor
+};
+
+struct Region {
+  std::string name;  ///< readable and unique, e.g. "slot_07_layer_2"
+  RegionKind kind = RegionKind::stator_iron;
+  int slot = 0;   ///< 1-based slot number for coil and slot_air regions, else 0
+  int layer = 0;  ///< 1-based layer (1 nearest the gap) for coil regions, else 0
+};
+
+/// The circle in the middle of the gap where the stator-side and rotor-side meshes meet.
+/// Both sides carry n nodes equally spaced in angle: node i of either list sits at
+/// start_angle + 2*pi*i/n [rad]. A rotor turned by k node pitches reconnects rotor node i
+/// to stator node (i + k) mod n without remeshing.
+struct SlidingCircle {
+  double radius = 0.0;       ///< [m]
+  double start_angle = 0.0;  ///< [rad]
+  std::vector<int> stator_nodes;
+  std::vector<int> rotor_nodes;
+};
+
+struct Mesh {
+  Eigen::MatrixX2d nodes;           ///< #nodes by 2, coordinates [m]
+  Eigen::MatrixX3i triangles;       ///< #triangles by 3 node indices, counter-clockwise
+  Eigen::VectorXi triangle_region;  ///< #triangles, index into regions
+  std::vector<Region> regions;
+  std::vector<int> outer_nodes;     ///< nodes on the stator's outer surface, where A = 0
+  SlidingCircle sliding;
+  double gap_inner_radius = 0.0;    ///< rotor surface [m]
+  double gap_outer_radius = 0.0;    ///< stator bore [m]
+
+  int n_nodes() const { return static_cast<int>(nodes.rows()); }
+  int n_triangles() const { return static_cast<int>(triangles.rows()); }
+};
+
+/// Index of the region with this kind, slot and layer; -1 if there is none.
+int find_region(const Mesh& m, RegionKind kind, int slot = 0, int layer = 0);
+
+/// Area of each region [m^2], indexed like m.regions.
+std::vector<double> region_areas(const Mesh& m);
+
+/// Signed area of triangle t [m^2]; positive for counter-clockwise nodes.
+double triangle_area(const Mesh& m, int t);
+
+}  // namespace tf::mesh

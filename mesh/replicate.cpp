@@ -1,0 +1,166 @@
+#include "mesh/replicate.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <map>
+#include <numbers>
+#include <numeric>
+#include <string>
+
+namespace tf::mesh::detail {
+namespace {
+
+constexpr double kTwoPi = 2 * std::numbers::pi;
+
+/// Disjoint sets over node ids, to merge the nodes that copies share on their cuts.
+struct NodeSets {
+  std::vector<int> parent;
+  explicit NodeSets(int n) : parent(n) { std::iota(parent.begin(), parent.end(), 0); }
+  int find(int i) {
+    while (parent[i] != i) i = parent[i] = parent[parent[i]];
+    return i;
+  }
+  void join(int i, int j) { parent[find(i)] = find(j); }
+};
+
+/// One family of copies of a sector: where its ids start in the combined numbering.
+struct Copies {
+  const SectorMesh* sector;
+  int n_copies;
+  int first_id;
+  int id(int copy, int node) const { return first_id + copy * static_cast<int>(sector->nodes.rows()) + node; }
+  Eigen::Vector2d position(int copy, int node) const {
+    const double t = copy * sector->span, c = std::cos(t), s = std::sin(t);
+    const Eigen::Vector2d p = sector->nodes.row(node);
+    return {c * p(0) - s * p(1), s * p(0) + c * p(1)};
+  }
+};
+
+void join_cuts(const Copies& c, NodeSets& sets, double tolerance) {
+  const SectorMesh& s = *c.sector;
+  if (s.start_cut.size() != s.end_cut.size())
+    throw MeshError("the two cuts of a sector carry " + std::to_string(s.start_cut.size()) + " and " +
+                    std::to_string(s.end_cut.size()) + " nodes; periodic meshing failed");
+  for (int k = 0; k < c.n_copies; ++k) {
+    const int next = (k + 1) % c.n_copies;
+    for (std::size_t i = 0; i < s.end_cut.size(); ++i) {
+      const Eigen::Vector2d p = c.position(k, s.end_cut[i]), q = c.position(next, s.start_cut[i]);
+      if ((p - q).norm() > tolerance) throw MeshError("nodes on neighbouring sector cuts do not coincide");
+      sets.join(c.id(k, s.end_cut[i]), c.id(next, s.start_cut[i]));
+    }
+  }
+}
+
+std::string slot_region_name(int slot, int n_slots, const PieceKind& kind) {
+  const int digits = static_cast<int>(std::to_string(n_slots).size());
+  std::string number = std::to_string(slot);
+  number.insert(0, std::max(0, digits - static_cast<int>(number.size())), '0');
+  if (kind.kind == RegionKind::coil) return "slot_" + number + "_layer_" + std::to_string(kind.layer);
+  return "slot_" + number + "_opening";
+}
+
+std::string region_name(const PieceKind& kind, bool rotor_side) {
+  switch (kind.kind) {
+    case RegionKind::stator_iron: return "stator_iron";
+    case RegionKind::rotor_iron: return "rotor_iron";
+    case RegionKind::shaft: return "shaft";
+    case RegionKind::bore_air: return "bore_air";
+    case RegionKind::gap: return rotor_side ? "gap_rotor_side" : "gap_stator_side";
+    default: return "?";
+  }
+}
+
+/// Builds the region table as triangles are added; slot regions are numbered per copy.
+struct RegionTable {
+  std::vector<Region>& regions;
+  std::map<std::string, int> by_name;
+  int index(const PieceKind& kind, int slot, int n_slots, bool rotor_side) {
+    const bool per_slot = kind.kind == RegionKind::coil || kind.kind == RegionKind::slot_air;
+    const std::string name = per_slot ? slot_region_name(slot, n_slots, kind) : region_name(kind, rotor_side);
+    const auto [it, added] = by_name.emplace(name, static_cast<int>(regions.size()));
+    if (added) regions.push_back({name, kind.kind, per_slot ? slot : 0, kind.kind == RegionKind::coil ? kind.layer : 0});
+    return it->second;
+  }
+};
+
+/// The sliding-circle nodes of all copies, in angle order; checks they are equally spaced.
+std::vector<int> sliding_nodes(const Copies& c, NodeSets& sets, const std::vector<int>& new_id, double start,
+                               double tolerance_angle) {
+  std::vector<std::pair<double, int>> by_angle;
+  for (int k = 0; k < c.n_copies; ++k)
+    for (int node : c.sector->sliding) {
+      const Eigen::Vector2d p = c.position(k, node);
+      double a = std::atan2(p(1), p(0)) - start;
+      a -= kTwoPi * std::floor(a / kTwoPi + 1e-9);
+      by_angle.push_back({a, new_id[sets.find(c.id(k, node))]});
+    }
+  std::sort(by_angle.begin(), by_angle.end());
+  std::vector<int> nodes;
+  for (const auto& [a, id] : by_angle)
+    if (nodes.empty() || nodes.back() != id) nodes.push_back(id);
+  if (nodes.size() > 1 && nodes.front() == nodes.back()) nodes.pop_back();
+  const double pitch = kTwoPi / static_cast<double>(nodes.size());
+  for (std::size_t i = 0; i < by_angle.size(); ++i)
+    if (std::abs(std::remainder(by_angle[i].first, pitch)) > tolerance_angle)
+      throw MeshError("nodes on the sliding circle are not equally spaced");
+  return nodes;
+}
+
+}  // namespace
+
+Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies, const SectorMesh& rotor,
+               int n_rotor_copies) {
+  const Copies sc{&stator, n_stator_copies, 0};
+  const Copies rc{&rotor, n_rotor_copies, n_stator_copies * static_cast<int>(stator.nodes.rows())};
+  const int n_ids = rc.first_id + n_rotor_copies * static_cast<int>(rotor.nodes.rows());
+  const double tolerance = 1e-7 * g.stator.outer_radius;
+  NodeSets sets(n_ids);
+  join_cuts(sc, sets, tolerance);
+  join_cuts(rc, sets, tolerance);
+
+  Mesh m;
+  std::vector<int> new_id(n_ids, -1);
+  std::vector<Eigen::Vector2d> xy;
+  for (const Copies* c : {&sc, &rc})
+    for (int k = 0; k < c->n_copies; ++k)
+      for (int i = 0; i < c->sector->nodes.rows(); ++i) {
+        const int root = sets.find(c->id(k, i));
+        if (new_id[root] < 0) {
+          new_id[root] = static_cast<int>(xy.size());
+          xy.push_back(c->position(k, i));
+        }
+      }
+  m.nodes.resize(static_cast<Eigen::Index>(xy.size()), 2);
+  for (std::size_t i = 0; i < xy.size(); ++i) m.nodes.row(static_cast<Eigen::Index>(i)) = xy[i].transpose();
+
+  const int n_tri = n_stator_copies * static_cast<int>(stator.triangles.rows()) +
+                    n_rotor_copies * static_cast<int>(rotor.triangles.rows());
+  m.triangles.resize(n_tri, 3);
+  m.triangle_region.resize(n_tri);
+  RegionTable table{m.regions, {}};
+  int t = 0;
+  for (const Copies* c : {&sc, &rc})
+    for (int k = 0; k < c->n_copies; ++k)
+      for (int e = 0; e < c->sector->triangles.rows(); ++e, ++t) {
+        for (int j = 0; j < 3; ++j) m.triangles(t, j) = new_id[sets.find(c->id(k, c->sector->triangles(e, j)))];
+        const PieceKind& kind = c->sector->pieces[c->sector->triangle_piece[e]];
+        m.triangle_region(t) = table.index(kind, k + 1, n_stator_copies, c == &rc);
+      }
+
+  const double angle_tolerance = 1e-6;
+  m.sliding.radius = g.mid_gap_radius();
+  m.sliding.start_angle = stator.start_angle;
+  m.sliding.stator_nodes = sliding_nodes(sc, sets, new_id, stator.start_angle, angle_tolerance);
+  m.sliding.rotor_nodes = sliding_nodes(rc, sets, new_id, stator.start_angle, angle_tolerance);
+  if (m.sliding.stator_nodes.size() != m.sliding.rotor_nodes.size())
+    throw MeshError("the stator and rotor sides of the sliding circle carry different node counts");
+  for (int k = 0; k < n_stator_copies; ++k)
+    for (int node : stator.outer) m.outer_nodes.push_back(new_id[sets.find(sc.id(k, node))]);
+  std::sort(m.outer_nodes.begin(), m.outer_nodes.end());
+  m.outer_nodes.erase(std::unique(m.outer_nodes.begin(), m.outer_nodes.end()), m.outer_nodes.end());
+  m.gap_inner_radius = g.rotor.outer_radius;
+  m.gap_outer_radius = g.stator.bore_radius;
+  return m;
+}
+
+}  // namespace tf::mesh::detail

@@ -1,0 +1,184 @@
+// Meshing one sector: periodic cuts, an equally divided sliding arc, sizes from a rule,
+// then the triangles and boundary node lists read back from Gmsh.
+
+#include "mesh/sector.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <numbers>
+#include <string>
+#include <unordered_map>
+
+#include <gmsh.h>
+
+#include "mesh/sector_shapes.hpp"
+
+namespace tf::mesh::detail {
+namespace {
+
+struct Boundaries {
+  std::vector<int> start_cut, end_cut, sliding, outer;  // Gmsh curve tags
+};
+
+struct SectorFrame {
+  double start_angle, span, sliding_radius, outer_radius, tolerance;
+};
+
+/// Distance of (x, y) from the ray at angle a; points behind the origin count as far.
+double distance_to_ray(double x, double y, double a) {
+  const double along = x * std::cos(a) + y * std::sin(a);
+  const double across = -x * std::sin(a) + y * std::cos(a);
+  return along < -1e-12 ? 1e30 : std::abs(across);
+}
+
+/// Sorts each curve by where three points on it lie (OCC bounding boxes are padded, so we evaluate).
+Boundaries classify_curves(const SectorFrame& f) {
+  gmsh::vectorpair curves;
+  gmsh::model::getEntities(curves, 1);
+  Boundaries b;
+  const double end_angle = f.start_angle + f.span;
+  for (const auto& [dim, tag] : curves) {
+    std::vector<double> lo, hi, xyz;
+    gmsh::model::getParametrizationBounds(1, tag, lo, hi);
+    gmsh::model::getValue(1, tag, {lo[0], 0.5 * (lo[0] + hi[0]), hi[0]}, xyz);
+    bool on_start = true, on_end = true, on_sliding = true, on_outer = f.outer_radius > 0.0;
+    for (int k = 0; k < 3; ++k) {
+      const double x = xyz[3 * k], y = xyz[3 * k + 1], r = std::hypot(x, y);
+      on_start &= distance_to_ray(x, y, f.start_angle) < f.tolerance;
+      on_end &= distance_to_ray(x, y, end_angle) < f.tolerance;
+      on_sliding &= std::abs(r - f.sliding_radius) < f.tolerance;
+      on_outer &= std::abs(r - f.outer_radius) < f.tolerance;
+    }
+    if (on_start) b.start_cut.push_back(tag);
+    if (on_end) b.end_cut.push_back(tag);
+    if (on_sliding) b.sliding.push_back(tag);
+    if (on_outer) b.outer.push_back(tag);
+  }
+  return b;
+}
+
+double mid_radius(int curve) {
+  std::vector<double> lo, hi, xyz;
+  gmsh::model::getParametrizationBounds(1, curve, lo, hi);
+  gmsh::model::getValue(1, curve, {0.5 * (lo[0] + hi[0])}, xyz);
+  return std::hypot(xyz[0], xyz[1]);
+}
+
+/// The end cut is the start cut turned by the span: Gmsh then gives both the same nodes.
+void make_cuts_periodic(Boundaries& b, double span) {
+  if (b.start_cut.size() != b.end_cut.size() || b.start_cut.empty())
+    throw MeshError("sector cuts do not match: " + std::to_string(b.start_cut.size()) + " curves on one side, " +
+                    std::to_string(b.end_cut.size()) + " on the other");
+  auto by_radius = [](int p, int q) { return mid_radius(p) < mid_radius(q); };
+  std::sort(b.start_cut.begin(), b.start_cut.end(), by_radius);
+  std::sort(b.end_cut.begin(), b.end_cut.end(), by_radius);
+  const double c = std::cos(span), s = std::sin(span);
+  gmsh::model::mesh::setPeriodic(1, b.end_cut, b.start_cut, {c, -s, 0, 0, s, c, 0, 0, 0, 0, 1, 0, 0, 0, 0, 1});
+}
+
+std::vector<int> curve_nodes(const std::vector<int>& curves, const std::unordered_map<std::size_t, int>& index) {
+  std::vector<int> nodes;
+  for (int c : curves) {
+    std::vector<std::size_t> tags;
+    std::vector<double> xyz, uv;
+    gmsh::model::mesh::getNodes(tags, xyz, uv, 1, c, true, false);
+    for (std::size_t t : tags) nodes.push_back(index.at(t));
+  }
+  std::sort(nodes.begin(), nodes.end());
+  nodes.erase(std::unique(nodes.begin(), nodes.end()), nodes.end());
+  return nodes;
+}
+
+void read_triangles(const std::vector<Piece>& pieces, const std::unordered_map<std::size_t, int>& index,
+                    SectorMesh& out) {
+  std::vector<Eigen::Vector3i> tris;
+  for (const Piece& p : pieces) {
+    const auto it = std::find(out.pieces.begin(), out.pieces.end(), p.kind);
+    const int label = static_cast<int>(it - out.pieces.begin());
+    if (it == out.pieces.end()) out.pieces.push_back(p.kind);
+    std::vector<std::size_t> tags, nodes;
+    gmsh::model::mesh::getElementsByType(2, tags, nodes, p.tag);
+    for (std::size_t e = 0; e < tags.size(); ++e) {
+      Eigen::Vector3i t(index.at(nodes[3 * e]), index.at(nodes[3 * e + 1]), index.at(nodes[3 * e + 2]));
+      const Eigen::Vector2d a = out.nodes.row(t(1)) - out.nodes.row(t(0));
+      const Eigen::Vector2d b = out.nodes.row(t(2)) - out.nodes.row(t(0));
+      if (a(0) * b(1) - a(1) * b(0) < 0.0) std::swap(t(1), t(2));
+      tris.push_back(t);
+      out.triangle_piece.push_back(label);
+    }
+  }
+  out.triangles.resize(static_cast<Eigen::Index>(tris.size()), 3);
+  for (std::size_t e = 0; e < tris.size(); ++e) out.triangles.row(static_cast<Eigen::Index>(e)) = tris[e].transpose();
+}
+
+SectorMesh mesh_pieces(const std::vector<Piece>& pieces, const SectorFrame& f, int n_sliding_segments,
+                       const SizeRule& size) {
+  gmsh::model::occ::synchronize();
+  Boundaries b = classify_curves(f);
+  make_cuts_periodic(b, f.span);
+  if (b.sliding.size() != 1) throw MeshError("the sliding arc of a sector is not one curve");
+  gmsh::model::mesh::setTransfiniteCurve(b.sliding[0], n_sliding_segments + 1);
+  gmsh::model::mesh::setSizeCallback([&size](int, int, double x, double y, double) { return size(x, y); });
+  gmsh::model::mesh::generate(2);
+  gmsh::model::mesh::removeSizeCallback();
+
+  SectorMesh out;
+  out.start_angle = f.start_angle;
+  out.span = f.span;
+  std::vector<std::size_t> tags;
+  std::vector<double> xyz, uv;
+  gmsh::model::mesh::getNodes(tags, xyz, uv, -1, -1, false, false);
+  std::unordered_map<std::size_t, int> index;
+  out.nodes.resize(static_cast<Eigen::Index>(tags.size()), 2);
+  for (std::size_t i = 0; i < tags.size(); ++i) {
+    index[tags[i]] = static_cast<int>(i);
+    out.nodes.row(static_cast<Eigen::Index>(i)) << xyz[3 * i], xyz[3 * i + 1];
+  }
+  read_triangles(pieces, index, out);
+  auto by_radius = [&](int p, int q) { return out.nodes.row(p).norm() < out.nodes.row(q).norm(); };
+  auto angle = [&](int p) { return std::remainder(std::atan2(out.nodes(p, 1), out.nodes(p, 0)) - f.start_angle, 2 * std::numbers::pi); };
+  out.start_cut = curve_nodes(b.start_cut, index);
+  out.end_cut = curve_nodes(b.end_cut, index);
+  std::sort(out.start_cut.begin(), out.start_cut.end(), by_radius);
+  std::sort(out.end_cut.begin(), out.end_cut.end(), by_radius);
+  out.sliding = curve_nodes(b.sliding, index);
+  std::sort(out.sliding.begin(), out.sliding.end(), [&](int p, int q) { return angle(p) < angle(q); });
+  out.outer = curve_nodes(b.outer, index);
+  return out;
+}
+
+/// Gmsh reports failures by exception with its own words; add which sector failed.
+template <class Build>
+SectorMesh with_context(const char* what, Build build) {
+  try {
+    gmsh::clear();
+    return build();
+  } catch (const MeshError&) {
+    throw;
+  } catch (const std::exception& e) {
+    throw MeshError(std::string("meshing the ") + what + " failed: " + e.what());
+  } catch (...) {
+    throw MeshError(std::string("meshing the ") + what + " failed inside Gmsh");
+  }
+}
+
+}  // namespace
+
+SectorMesh mesh_stator_sector(const Geometry& g, int n_layers, int n_sliding_segments, const SizeRule& size) {
+  return with_context("stator slot pitch", [&] {
+    const double a = std::numbers::pi / g.stator.n_slots;
+    const SectorFrame f{-a, 2 * a, g.mid_gap_radius(), g.stator.outer_radius, 1e-6 * g.stator.outer_radius};
+    return mesh_pieces(build_stator_pieces(g, n_layers), f, n_sliding_segments, size);
+  });
+}
+
+SectorMesh mesh_rotor_sector(const Geometry& g, int n_sectors, double start_angle, int n_sliding_segments,
+                             const SizeRule& size) {
+  return with_context("rotor sector", [&] {
+    const double span = 2 * std::numbers::pi / n_sectors;
+    const SectorFrame f{start_angle, span, g.mid_gap_radius(), 0.0, 1e-6 * g.stator.outer_radius};
+    return mesh_pieces(build_rotor_pieces(g, start_angle, start_angle + span), f, n_sliding_segments, size);
+  });
+}
+
+}  // namespace tf::mesh::detail

@@ -1,0 +1,47 @@
+#pragma once
+// One periodic piece of the cross-section (a stator slot pitch, or a rotor sector), meshed by Gmsh
+// with matching nodes on its two radial cuts, so that rotated copies join into the whole model.
+
+#include <functional>
+#include <vector>
+
+#include <Eigen/Core>
+
+#include "mesh/geometry.hpp"
+#include "mesh/mesh.hpp"
+
+namespace tf::mesh::detail {
+
+/// What a piece of a sector is; the slot number is given when the sector is copied.
+struct PieceKind {
+  RegionKind kind = RegionKind::stator_iron;
+  int layer = 0;
+  bool operator==(const PieceKind&) const = default;
+};
+
+/// A sector spanning [start_angle, start_angle + span] [rad], meshed.
+struct SectorMesh {
+  double start_angle = 0.0;
+  double span = 0.0;
+  Eigen::MatrixX2d nodes;             ///< #nodes by 2 [m]
+  Eigen::MatrixX3i triangles;         ///< #triangles by 3, counter-clockwise
+  std::vector<int> triangle_piece;    ///< #triangles, index into pieces
+  std::vector<PieceKind> pieces;
+  std::vector<int> start_cut;         ///< nodes on the cut at start_angle, by increasing radius
+  std::vector<int> end_cut;           ///< nodes on the cut at start_angle + span, by increasing radius
+  std::vector<int> sliding;           ///< nodes on the sliding arc, by increasing angle
+  std::vector<int> outer;             ///< nodes on the outer arc (stator only)
+};
+
+/// Element size [m] at a point (x, y) [m].
+using SizeRule = std::function<double(double x, double y)>;
+
+/// The stator slot pitch centred on slot 1 (on the +x axis), from the sliding circle to the
+/// outer surface, with n_sliding_segments equal segments on the sliding arc.
+SectorMesh mesh_stator_sector(const Geometry& g, int n_layers, int n_sliding_segments, const SizeRule& size);
+
+/// A rotor sector of span 2*pi/n_sectors starting at start_angle, from the centre to the sliding circle.
+SectorMesh mesh_rotor_sector(const Geometry& g, int n_sectors, double start_angle,
+                             int n_sliding_segments, const SizeRule& size);
+
+}  // namespace tf::mesh::detail

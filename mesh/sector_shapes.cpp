@@ -1,0 +1,146 @@
+// Stator and rotor sectors as OpenCASCADE surfaces, each piece labelled with what it is.
+// Boolean fragments make all interfaces conformal; the fragment map (not point probing)
+// tells which piece came from which input shape, so labelling cannot be fooled by
+// non-convex pieces.
+
+#include <cmath>
+#include <numbers>
+
+#include <gmsh.h>
+
+#include "mesh/sector_shapes.hpp"
+
+namespace tf::mesh::detail {
+namespace {
+
+namespace occ = gmsh::model::occ;
+
+int add_polar_point(double r, double angle) {
+  return occ::addPoint(r * std::cos(angle), r * std::sin(angle), 0.0);
+}
+
+/// A rectangle in slot-local coordinates: x along the slot centre line from the machine axis,
+/// symmetric about it with the given width; the slot centre line is the +x axis.
+int add_slot_rectangle(double x0, double x1, double width) {
+  return occ::addRectangle(x0, -0.5 * width, 0.0, x1 - x0, width);
+}
+
+bool contains(const gmsh::vectorpair& list, int tag) {
+  for (const auto& [dim, t] : list)
+    if (dim == 2 && t == tag) return true;
+  return false;
+}
+
+struct LabelledShape {
+  int tag;
+  PieceKind kind;
+};
+
+/// The slot's pieces, from the gap upwards. The lowest piece reaches below the bore so that it
+/// cuts the bore arc cleanly; what lies below the bore is discarded after the fragment.
+std::vector<LabelledShape> slot_shapes(const StatorGeometry& s, int n_layers) {
+  const double r_b = s.bore_radius;
+  const double x_low = 0.5 * r_b;
+  const double x_bottom = r_b + s.slot.depth;
+  std::vector<LabelledShape> shapes;
+  double coil_start = x_low;
+  if (s.slot.shape == SlotShape::semi_closed) {
+    const double tip_top = r_b + s.slot.tip_height;
+    shapes.push_back({add_slot_rectangle(x_low, tip_top, s.slot.opening_width), {RegionKind::slot_air, 0}});
+    coil_start = tip_top;
+    if (s.slot.wedge_height > 0.0) {
+      const double wedge_top = tip_top + s.slot.wedge_height;
+      shapes.push_back({add_slot_rectangle(tip_top, wedge_top, s.slot.width), {RegionKind::slot_air, 0}});
+      coil_start = wedge_top;
+    }
+  }
+  // Layer 1 is the one nearest the gap. Layers share the coil height equally.
+  const double coil_floor = (s.slot.shape == SlotShape::open) ? r_b : coil_start;
+  const double layer_height = (x_bottom - coil_floor) / n_layers;
+  for (int layer = 1; layer <= n_layers; ++layer) {
+    const double x0 = (layer == 1) ? coil_start : coil_floor + (layer - 1) * layer_height;
+    const double x1 = coil_floor + layer * layer_height;
+    shapes.push_back({add_slot_rectangle(x0, x1, s.slot.width), {RegionKind::coil, layer}});
+  }
+  return shapes;
+}
+
+}  // namespace
+
+int add_annular_sector(double r_in, double r_out, double a0, double a1) {
+  const int centre = occ::addPoint(0.0, 0.0, 0.0);
+  const int out0 = add_polar_point(r_out, a0);
+  const int out1 = add_polar_point(r_out, a1);
+  std::vector<int> loop;
+  if (r_in > 0.0) {
+    const int in0 = add_polar_point(r_in, a0);
+    const int in1 = add_polar_point(r_in, a1);
+    loop = {occ::addLine(in0, out0), occ::addCircleArc(out0, centre, out1), occ::addLine(out1, in1),
+            occ::addCircleArc(in1, centre, in0)};
+    occ::remove({{0, centre}});  // only the arcs needed it
+  } else {
+    loop = {occ::addLine(centre, out0), occ::addCircleArc(out0, centre, out1), occ::addLine(out1, centre)};
+  }
+  return occ::addPlaneSurface({occ::addCurveLoop(loop)});
+}
+
+std::vector<Piece> build_stator_pieces(const Geometry& g, int n_layers) {
+  const StatorGeometry& s = g.stator;
+  const double a = std::numbers::pi / s.n_slots;
+  const int stator = add_annular_sector(s.bore_radius, s.outer_radius, -a, a);
+  const std::vector<LabelledShape> slot = slot_shapes(s, n_layers);
+
+  gmsh::vectorpair tools, out;
+  for (const auto& shape : slot) tools.push_back({2, shape.tag});
+  std::vector<gmsh::vectorpair> children;
+  occ::fragment({{2, stator}}, tools, out, children);
+
+  std::vector<Piece> pieces;
+  gmsh::vectorpair outside;
+  for (const auto& [dim, tag] : out) {
+    if (dim != 2) continue;
+    if (!contains(children[0], tag)) {  // part of a slot shape below the bore
+      outside.push_back({2, tag});
+      continue;
+    }
+    PieceKind kind{RegionKind::stator_iron, 0};
+    for (std::size_t i = 0; i < slot.size(); ++i)
+      if (contains(children[i + 1], tag)) kind = slot[i].kind;
+    pieces.push_back({tag, kind});
+  }
+  occ::remove(outside, true);
+
+  const int gap = add_annular_sector(g.mid_gap_radius(), s.bore_radius, -a, a);
+  return fragment_pieces(pieces, {gap, {RegionKind::gap, 0}});
+}
+
+std::vector<Piece> build_rotor_pieces(const Geometry& g, double a0, double a1) {
+  const RotorGeometry& r = g.rotor;
+  std::vector<Piece> rings;
+  if (r.kind == RotorKind::none) {
+    rings.push_back({add_annular_sector(0.0, r.outer_radius, a0, a1), {RegionKind::bore_air, 0}});
+  } else if (r.shaft_radius > 0.0) {
+    rings.push_back({add_annular_sector(0.0, r.shaft_radius, a0, a1), {RegionKind::shaft, 0}});
+    rings.push_back({add_annular_sector(r.shaft_radius, r.outer_radius, a0, a1), {RegionKind::rotor_iron, 0}});
+  } else {
+    rings.push_back({add_annular_sector(0.0, r.outer_radius, a0, a1), {RegionKind::rotor_iron, 0}});
+  }
+  const Piece gap{add_annular_sector(r.outer_radius, g.mid_gap_radius(), a0, a1), {RegionKind::gap, 0}};
+  return fragment_pieces(rings, gap);
+}
+
+std::vector<Piece> fragment_pieces(const std::vector<Piece>& pieces, const Piece& added) {
+  gmsh::vectorpair objects, out;
+  for (const auto& p : pieces) objects.push_back({2, p.tag});
+  std::vector<gmsh::vectorpair> children;
+  occ::fragment(objects, {{2, added.tag}}, out, children);
+  std::vector<Piece> result;
+  for (std::size_t i = 0; i <= pieces.size(); ++i) {
+    const PieceKind kind = (i < pieces.size()) ? pieces[i].kind : added.kind;
+    for (const auto& [dim, tag] : children[i])
+      if (dim == 2) result.push_back({tag, kind});
+  }
+  return result;
+}
+
+}  // namespace tf::mesh::detail

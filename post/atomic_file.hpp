@@ -1,0 +1,26 @@
+#pragma once
+// Every output file is written under a temporary name and renamed into place when complete,
+// so a killed run never leaves a truncated file that looks finished.
+
+#include <filesystem>
+#include <functional>
+#include <ostream>
+#include <stdexcept>
+
+namespace tf::post {
+
+/// Writing an output file failed (disk full, no permission); the message names the file.
+struct OutputError : std::runtime_error {
+  using std::runtime_error::runtime_error;
+};
+
+/// Writes `path` through `fill`; throws OutputError and leaves no file on failure.
+void write_atomically(const std::filesystem::path& path, const std::function<void(std::ostream&)>& fill);
+
+/// Renames a finished temporary file into place; throws OutputError.
+void commit_file(const std::filesystem::path& temporary, const std::filesystem::path& path);
+
+/// The temporary name used while `path` is being written.
+std::filesystem::path temporary_name(const std::filesystem::path& path);
+
+}  // namespace tf::post

@@ -1,0 +1,53 @@
+#include "post/study.hpp"
+
+#include <cmath>
+#include <numbers>
+
+namespace tf::post {
+
+StudyResult phase_sweep(const mesh::Mesh& m, const mesh::Winding& w, const solver::PhaseFields& fields,
+                        const solver::Supply& supply, const StudyPlan& plan) {
+  const int p = w.spec.pole_pairs();
+  const int max_order = p * plan.max_harmonic;
+  const GapOperators ops = gap_operators(m, plan.n_gap_points, max_order);
+  // Sample the m unit phase fields once; each step is then a small combination of them.
+  const Eigen::MatrixXd unit_br = ops.br * fields.potential;
+  const Eigen::MatrixXd unit_bt = ops.bt * fields.potential;
+  const Eigen::MatrixXcd unit_harmonics = gap_harmonics(ops, fields.potential);
+
+  StudyResult out;
+  out.sample_angles = ops.angles;
+  std::vector<std::complex<double>> fundamental;
+  std::vector<double> peak, distortion;
+  for (int k = 0; k < plan.n_steps; ++k) {
+    StepResult s;
+    s.electrical_angle = 2 * std::numbers::pi * k / plan.n_steps;
+    s.currents = solver::phase_currents(supply, w.spec.n_phases, s.electrical_angle);
+    const Eigen::Map<const Eigen::VectorXd> i(s.currents.data(), static_cast<Eigen::Index>(s.currents.size()));
+    s.br = unit_br * i;
+    s.bt = unit_bt * i;
+    s.harmonics = unit_harmonics * i.cast<std::complex<double>>();
+    s.fundamental = s.harmonics(p);
+    s.axis = axis_angle(s.fundamental, p);
+    s.peak = s.br.cwiseAbs().maxCoeff();
+    const double others = s.harmonics.segment(1, max_order).squaredNorm() - std::norm(s.fundamental);
+    s.distortion = std::abs(s.fundamental) > 0.0 ? std::sqrt(std::max(0.0, others)) / std::abs(s.fundamental) : 0.0;
+    fundamental.push_back(s.fundamental);
+    peak.push_back(s.peak);
+    distortion.push_back(s.distortion);
+    out.steps.push_back(std::move(s));
+  }
+  out.metrics = rotation_metrics(fundamental, peak, distortion, p);
+  return out;
+}
+
+std::vector<int> field_file_steps(int n_steps, int n_files) {
+  std::vector<int> steps;
+  for (int f = 0; f < n_files; ++f) {
+    const int k = static_cast<int>(std::llround(static_cast<double>(f) * n_steps / n_files));
+    if (steps.empty() || steps.back() != k) steps.push_back(k);
+  }
+  return steps;
+}
+
+}  // namespace tf::post

@@ -1,0 +1,49 @@
+#pragma once
+// A phase-angle study: the supply advances through one electrical period in K equal steps;
+// each step's field is the superposition of the unit phase fields, sampled through the gap operators.
+
+#include <complex>
+#include <vector>
+
+#include <Eigen/Core>
+
+#include "mesh/mesh.hpp"
+#include "mesh/winding.hpp"
+#include "post/gap_field.hpp"
+#include "post/rotation_metrics.hpp"
+#include "solver/phase_fields.hpp"
+#include "solver/supply.hpp"
+
+namespace tf::post {
+
+struct StudyPlan {
+  int n_steps = 36;        ///< steps over one electrical period, ωt_k = 360°·k/K
+  int n_field_files = 36;  ///< steps that get a VTU file, evenly spaced
+  int n_gap_points = 720;  ///< samples on the mid-gap circle
+  int max_harmonic = 25;   ///< highest electrical space order reported
+};
+
+struct StepResult {
+  double electrical_angle = 0.0;  ///< ωt [rad]
+  std::vector<double> currents;   ///< phase currents [A]
+  Eigen::VectorXd br, bt;         ///< B_r, B_θ [T] at the gap sample angles
+  Eigen::VectorXcd harmonics;     ///< c_n [T], mechanical order n = 0 .. p * max_harmonic
+  std::complex<double> fundamental;  ///< c_p
+  double axis = 0.0;        ///< mechanical axis angle of the fundamental [rad]
+  double peak = 0.0;        ///< max_θ |B_r| [T]
+  double distortion = 0.0;  ///< sqrt(Σ_{n≠p} |c_n|²)/|c_p|, n = 1 .. p * max_harmonic
+};
+
+struct StudyResult {
+  std::vector<double> sample_angles;  ///< [rad]
+  std::vector<StepResult> steps;
+  RotationMetrics metrics;
+};
+
+StudyResult phase_sweep(const mesh::Mesh& m, const mesh::Winding& w, const solver::PhaseFields& fields,
+                        const solver::Supply& supply, const StudyPlan& plan);
+
+/// Steps [0, K) that get a field file: n evenly spaced, always including step 0.
+std::vector<int> field_file_steps(int n_steps, int n_files);
+
+}  // namespace tf::post

@@ -1,0 +1,75 @@
+#include "post/summary.hpp"
+
+#include <cmath>
+#include <numbers>
+
+#include <nlohmann/json.hpp>
+
+#include "post/atomic_file.hpp"
+
+namespace tf::post {
+namespace {
+
+using nlohmann::json;
+constexpr double kDeg = 180.0 / std::numbers::pi;
+
+json field_results(const StudyResult& s, int pole_pairs) {
+  const RotationMetrics& r = s.metrics;
+  return {
+      {"fundamental_T", r.mean_fundamental},
+      {"fundamental_order", pole_pairs},
+      {"amplitude_ripple", r.amplitude_ripple},
+      {"peak_field_T", {{"mean", r.mean_peak}, {"min", r.min_peak}, {"max", r.max_peak}}},
+      {"peak_field_ripple", r.peak_ripple},
+      {"axis_step_expected_deg", r.expected_step_deg},
+      {"rotation_uniformity_deg", r.rotation_uniformity_deg},
+      {"forward_wave_T", r.forward},
+      {"backward_wave_T", r.backward},
+      {"backward_forward_ratio", r.backward_forward_ratio},
+      {"harmonic_distortion", r.mean_distortion},
+      {"harmonic_method",
+       "B_r harmonics from the Fourier series of nodal A on the mid-gap circle, B_r,n = n A_n / r"},
+      {"steps", s.steps.size()},
+      {"gap_points", s.sample_angles.size()},
+  };
+}
+
+json winding_summary(const mesh::Winding& w) {
+  const auto factors = mesh::winding_factors(w, 1);
+  return {
+      {"slots_per_pole_per_phase", w.slots_per_pole_per_phase()},
+      {"series_turns_per_phase", w.series_turns()},
+      {"distribution_factor", factors[0].distribution},
+      {"pitch_factor", factors[0].pitch},
+      {"winding_factor", factors[0].total},
+      {"phase_A_axis_deg", w.phase_a_axis / w.spec.pole_pairs() * kDeg},
+  };
+}
+
+}  // namespace
+
+void write_summary(const std::filesystem::path& path, const RunRecord& r) {
+  json j;
+  j["program"] = "turnfield";
+  j["version"] = r.version;
+  j["caution"] = kSafetyCaution;
+  j["inputs"] = json::parse(r.inputs_json);
+  j["mesh"] = {{"nodes", r.mesh->n_nodes()},
+               {"triangles", r.mesh->n_triangles()},
+               {"regions", r.mesh->regions.size()},
+               {"sliding_circle_nodes", r.mesh->sliding.stator_nodes.size()},
+               {"sliding_circle_radius_m", r.mesh->sliding.radius}};
+  j["winding"] = winding_summary(*r.winding);
+  j["field"] = field_results(*r.study, r.winding->spec.pole_pairs());
+  j["solver"] = {{"unknowns", r.stats.n_dofs},
+                 {"matrix_nonzeros", r.stats.n_nonzeros},
+                 {"factorizations", 1},
+                 {"method", "CHOLMOD supernodal Cholesky; the m unit phase fields solved as one block, steps superposed"}};
+  json seconds = json::object();
+  for (const auto& [stage, s] : r.seconds) seconds[stage] = s;
+  j["seconds"] = seconds;
+  j["files"] = r.files;
+  write_atomically(path, [&](std::ostream& out) { out << j.dump(2) << '\n'; });
+}
+
+}  // namespace tf::post

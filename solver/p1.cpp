@@ -1,0 +1,28 @@
+#include "solver/p1.hpp"
+
+namespace tf::solver {
+
+Eigen::Matrix<double, 3, 2> p1_gradients(const TriangleXY& xy, double& twice_area) {
+  twice_area = (xy(1, 0) - xy(0, 0)) * (xy(2, 1) - xy(0, 1)) - (xy(2, 0) - xy(0, 0)) * (xy(1, 1) - xy(0, 1));
+  Eigen::Matrix<double, 3, 2> g;
+  for (int i = 0; i < 3; ++i) {
+    const int j = (i + 1) % 3, k = (i + 2) % 3;
+    g(i, 0) = (xy(j, 1) - xy(k, 1)) / twice_area;
+    g(i, 1) = (xy(k, 0) - xy(j, 0)) / twice_area;
+  }
+  return g;
+}
+
+Eigen::Matrix3d p1_stiffness(const TriangleXY& xy, double nu) {
+  double twice_area = 0.0;
+  const auto g = p1_gradients(xy, twice_area);
+  return (0.5 * twice_area * nu) * (g * g.transpose());
+}
+
+Eigen::Vector2d p1_flux_density(const TriangleXY& xy, const Eigen::Vector3d& a) {
+  double twice_area = 0.0;
+  const Eigen::Vector2d grad = p1_gradients(xy, twice_area).transpose() * a;
+  return {grad(1), -grad(0)};
+}
+
+}  // namespace tf::solver

@@ -1,0 +1,248 @@
+// Reading case files: the cases in cases/ come back with their numbers, and every file in
+// tests/data/bad/ is refused with a message naming the file, the line, the key and what was expected.
+
+#include <doctest/doctest.h>
+
+#include <filesystem>
+#include <fstream>
+#include <set>
+#include <string>
+#include <vector>
+
+#include "app/case_reader.hpp"
+#include "app/input_error.hpp"
+
+namespace {
+
+namespace fs = std::filesystem;
+using tf::app::InputError;
+using tf::app::read_case;
+
+const std::string source_dir = TF_SOURCE_DIR;
+const std::string bad_dir = source_dir + "/tests/data/bad/";
+
+/// The message of the InputError that reading `path` throws; "" if the file reads without error.
+std::string error_of(const std::string& path) {
+  try {
+    read_case(path);
+  } catch (const InputError& e) {
+    return e.what();
+  }
+  return "";
+}
+
+bool contains(const std::string& text, const std::string& part) { return text.find(part) != std::string::npos; }
+
+struct BadFile {
+  std::string name;
+  int line;                        ///< where the message must point
+  std::vector<std::string> parts;  ///< key, value, problem and expectation the message must contain
+};
+
+// Line numbers counted by hand in each file.
+const std::vector<BadFile> bad_files = {
+    {"bad_unknown_key.toml", 17, {"[stator.slot] unknown key 'slot_widht'", "did you mean 'width'?"}},
+    {"bad_unknown_key_no_guess.toml", 23, {"[rotor] unknown key 'colour'", "one of: kind, outer_radius, shaft_radius"}},
+    {"bad_unknown_table.toml", 41, {"unknown table [suply]", "did you mean [supply]?"}},
+    {"bad_missing_key.toml", 14, {"[stator.slot] missing key 'depth'", "expected a number in m, > 0"}},
+    {"bad_missing_table.toml", 1, {"missing table [winding]", "the keys phases, poles, layers, coil_pitch"}},
+    {"bad_string_for_number.toml", 10, {"[stator] bore_radius = \"60 mm\"", "found a string", "expected a number in m"}},
+    {"bad_float_for_integer.toml",
+     12,
+     {"[stator] slots = 36.0", "found a floating-point number", "expected an integer from 3 to 2000"}},
+    {"bad_negative_bore.toml", 10, {"[stator] bore_radius = -0.06", "out of range", "expected a number in m, > 0 and <= 5"}},
+    {"bad_nan_frequency.toml", 43, {"[supply] frequency = nan", "not a finite number", "expected a number in Hz, > 0"}},
+    {"bad_outer_below_bore.toml",
+     11,
+     {"[stator] outer_radius = 0.05", "not larger than the bore radius (60.00 mm)", "outer radius above 60.00 mm"}},
+    {"bad_slot_too_wide.toml",
+     16,
+     {"[stator.slot] width = 0.012", "wider than the slot pitch at the bore (10.46 mm)", "expected a width below 10.46 mm"}},
+    {"bad_thin_teeth.toml",
+     16,
+     {"[stator.slot] width = 0.01", "teeth between neighbouring slots are 0.46 mm wide at the bore",
+      "thinner than the minimum 0.50 mm", "expected a width at most 9.96 mm"}},
+    {"bad_opening_too_wide.toml",
+     18,
+     {"[stator.slot] opening = 0.0075", "not narrower than the slot width (7.00 mm)", "expected an opening below 7.00 mm"}},
+    {"bad_thin_tooth_tips.toml",
+     19,
+     {"[stator.slot] opening = 0.0126", "tooth tips between neighbouring openings are 0.46 mm wide at the bore",
+      "expected an opening at most 12.56 mm"}},
+    {"bad_slot_too_deep.toml",
+     17,
+     {"[stator.slot] depth = 0.0395", "leaving a yoke of 0.47 mm", "minimum 1.00 mm", "depth at most 38.97 mm"}},
+    {"bad_tips_fill_slot.toml",
+     20,
+     {"[stator.slot] tip_height = 0.004", "leave 2.00 mm of the 16.00 mm slot depth for the coil", "less than 20 %",
+      "expected tip_height + wedge_height at most 12.80 mm"}},
+    {"bad_rotor_touches.toml",
+     21,
+     {"[rotor] outer_radius = 0.06", "the rotor touches or overlaps the stator bore (R_b = 60.00 mm)",
+      "expected an outer radius at most 59.95 mm"}},
+    {"bad_gap_too_small.toml", 21, {"[rotor] outer_radius = 0.05998", "air gap is 0.020 mm, below the minimum 0.05 mm"}},
+    {"bad_shaft_too_large.toml",
+     22,
+     {"[rotor] shaft_radius = 0.0595", "shaft is as large as the rotor", "expected a shaft radius below 59.50 mm"}},
+    {"bad_shaft_without_rotor.toml", 22, {"[rotor] shaft_radius = 0.02", "not used without a rotor"}},
+    {"bad_rotor_iron_without_rotor.toml", 26, {"[materials.rotor_iron]", "not used, since [rotor] kind = \"none\""}},
+    {"bad_opening_in_open_slot.toml",
+     18,
+     {"[stator.slot] opening = 0.002", "not used by open slots", "shape = \"semi_closed\""}},
+    {"bad_shape_value.toml",
+     15,
+     {"[stator.slot] shape = \"semi-closed\"", "did you mean \"semi_closed\"?", "expected \"open\" or \"semi_closed\""}},
+    {"bad_odd_poles.toml", 35, {"[winding] poles = 5", "expected an even number"}},
+    {"bad_fractional_q.toml",
+     34,
+     {"[winding] phases = 2", "36/(4·2) = 9/2 slots per pole and phase", "2p·m = 8 to divide [stator] slots = 36",
+      "integral-slot windings"}},
+    {"bad_pitch_too_long.toml",
+     37,
+     {"[winding] coil_pitch = 10", "longer than the pole pitch of 9 slots", "expected a coil pitch from 1 to 9"}},
+    {"bad_single_layer_short_pitch.toml",
+     37,
+     {"[winding] coil_pitch = 8", "single-layer windings are laid out full pitch", "expected coil_pitch = 9"}},
+    {"bad_parallel_paths.toml",
+     39,
+     {"[winding] parallel_paths = 3", "cannot share the 4 coil groups", "expected a divisor of 4: 1, 2, 4"}},
+    {"bad_field_files.toml", 47, {"[study] field_files = 80", "more field files than steps (72)", "expected at most 72"}},
+    {"bad_syntax.toml", 15, {"not valid TOML"}},
+};
+
+}  // namespace
+
+TEST_CASE("the three-phase pump case reads back with every number in SI units") {
+  const auto c = read_case(source_dir + "/cases/pump24_three_phase.toml");
+  CHECK(c.title == "Pump motor, 24 slots, 4 poles, three-phase");
+  CHECK(c.stack_length == 0.06);
+  const auto& s = c.geometry.stator;
+  CHECK(s.bore_radius == 0.050);
+  CHECK(s.outer_radius == 0.085);
+  CHECK(s.n_slots == 24);
+  CHECK(s.slot.shape == tf::mesh::SlotShape::semi_closed);
+  CHECK(s.slot.width == 0.007);
+  CHECK(s.slot.depth == 0.016);
+  CHECK(s.slot.opening_width == 0.0025);
+  CHECK(s.slot.tip_height == 0.0008);
+  CHECK(s.slot.wedge_height == 0.0007);
+  CHECK(c.geometry.rotor.kind == tf::mesh::RotorKind::iron);
+  CHECK(c.geometry.rotor.outer_radius == 0.0496);
+  CHECK(c.geometry.rotor.shaft_radius == 0.016);
+  CHECK(c.geometry.gap_length() == doctest::Approx(0.0004));
+  CHECK(c.materials.stator_iron_mu_r == 3000.0);
+  CHECK(c.materials.rotor_iron_mu_r == 3000.0);
+  CHECK(c.materials.shaft_mu_r == 3000.0);
+  CHECK(c.winding.n_phases == 3);
+  CHECK(c.winding.n_poles == 4);
+  CHECK(c.winding.n_layers == 2);
+  CHECK(c.winding.coil_pitch == 5);
+  CHECK(c.winding.turns_per_coil == 12);
+  CHECK(c.winding.parallel_paths == 1);
+  CHECK(c.supply.peak_current == 6.0);
+  CHECK(c.supply.frequency == 50.0);
+  CHECK(c.study.n_steps == 36);
+  CHECK(c.mesh.fineness == 1.0);
+}
+
+TEST_CASE("the two-phase pump case winds the same stator with q = 3 and takes the default study") {
+  const auto c = read_case(source_dir + "/cases/pump24_two_phase.toml");
+  CHECK(c.geometry.stator.n_slots == 24);
+  CHECK(c.geometry.stator.slot.width == 0.007);
+  CHECK(c.winding.n_phases == 2);
+  CHECK(c.winding.coil_pitch == 6);
+  CHECK(c.winding.parallel_paths == 1);  // absent from the file
+  CHECK(c.study.n_steps == 36);
+  CHECK(c.study.n_field_files == 36);
+  CHECK(c.study.n_gap_points == 720);
+  CHECK(c.study.max_harmonic == 25);
+  CHECK(c.mesh.fineness == 1.0);
+}
+
+TEST_CASE("the 36-slot open-slot case reads its own study and mesh settings") {
+  const auto c = read_case(source_dir + "/cases/stator36_three_phase.toml");
+  const auto& slot = c.geometry.stator.slot;
+  CHECK(slot.shape == tf::mesh::SlotShape::open);
+  CHECK(slot.width == 0.005);
+  CHECK(slot.depth == 0.018);
+  CHECK(slot.opening_width == 0.0);
+  CHECK(slot.tip_height == 0.0);
+  CHECK(c.geometry.stator.bore_radius == 0.060);
+  CHECK(c.geometry.stator.outer_radius == 0.100);
+  CHECK(c.geometry.rotor.outer_radius == 0.0595);
+  CHECK(c.geometry.rotor.shaft_radius == 0.020);
+  CHECK(c.materials.shaft_mu_r == 100.0);
+  CHECK(c.winding.coil_pitch == 8);
+  CHECK(c.winding.turns_per_coil == 10);
+  CHECK(c.winding.parallel_paths == 2);
+  CHECK(c.study.n_steps == 72);
+  CHECK(c.study.n_field_files == 12);
+  CHECK(c.study.n_gap_points == 1440);
+  CHECK(c.study.max_harmonic == 31);
+  CHECK(c.mesh.fineness == 1.5);
+}
+
+TEST_CASE("every bad case file is refused at the right line, naming key, problem and expectation") {
+  for (const BadFile& bad : bad_files) {
+    CAPTURE(bad.name);
+    const std::string path = bad_dir + bad.name;
+    const std::string message = error_of(path);
+    CAPTURE(message);
+    // The message opens with the path exactly as given and the line.
+    CHECK(message.rfind(path + ":" + std::to_string(bad.line) + ": ", 0) == 0);
+    for (const std::string& part : bad.parts) CHECK(contains(message, part));
+  }
+}
+
+TEST_CASE("a misspelt key is reported as unknown before the key it replaced is missed") {
+  const std::string message = error_of(bad_dir + "bad_unknown_key.toml");
+  CHECK(contains(message, "unknown key 'slot_widht'"));
+  CHECK_FALSE(contains(message, "missing"));
+  // Only a close key is suggested; a far-fetched one gets the list of keys instead.
+  CHECK_FALSE(contains(error_of(bad_dir + "bad_unknown_key_no_guess.toml"), "did you mean"));
+}
+
+TEST_CASE("every file in tests/data/bad is tested and opens with a comment saying what is wrong") {
+  std::set<std::string> listed;
+  for (const BadFile& bad : bad_files) listed.insert(bad.name);
+  std::set<std::string> present;
+  for (const auto& entry : fs::directory_iterator(bad_dir)) {
+    const std::string name = entry.path().filename().string();
+    present.insert(name);
+    std::ifstream in(entry.path());
+    std::string first_line;
+    std::getline(in, first_line);
+    CAPTURE(name);
+    CHECK(first_line.rfind("# Wrong: ", 0) == 0);
+  }
+  CHECK(present == listed);
+}
+
+TEST_CASE("the path is kept exactly as the user gave it") {
+  const std::string relative = fs::relative(source_dir + "/cases/stator36_three_phase.toml").string();
+  REQUIRE(fs::path(relative).is_relative());
+  CHECK(read_case(relative).path == relative);
+  const std::string bad = fs::relative(bad_dir + "bad_odd_poles.toml").string();
+  CHECK(error_of(bad).rfind(bad + ":35: [winding] poles = 5: ", 0) == 0);
+}
+
+TEST_CASE("a case file that is missing or is a folder is an input error, not a crash") {
+  const std::string missing = source_dir + "/cases/no_such_case.toml";
+  const std::string message = error_of(missing);
+  CHECK(message.rfind(missing + ": cannot read the case file", 0) == 0);
+  CHECK(contains(message, "No such file"));
+  CHECK(contains(error_of(source_dir + "/cases"), "is a folder, not a case file"));
+}
+
+TEST_CASE("without a title the case is named after its file") {
+  const fs::path dir = fs::temp_directory_path() / "turnfield_test_case_reader";
+  fs::create_directories(dir);
+  const fs::path path = dir / "untitled_pump.toml";
+  std::ifstream in(source_dir + "/cases/pump24_two_phase.toml");
+  std::ofstream out(path);
+  for (std::string line; std::getline(in, line);)
+    if (line.rfind("title", 0) != 0) out << line << '\n';
+  out.close();
+  CHECK(read_case(path.string()).title == "untitled_pump");
+  fs::remove_all(dir);
+}

@@ -1,0 +1,118 @@
+// The command line as a user meets it: exit status, messages, and what is (not) written.
+
+#include <doctest/doctest.h>
+
+#include <array>
+#include <cstdio>
+#include <filesystem>
+#include <fstream>
+#include <nlohmann/json.hpp>
+#include <string>
+#include <sys/wait.h>
+
+namespace fs = std::filesystem;
+
+namespace {
+
+struct Outcome {
+  int status;
+  std::string output;  // standard output and standard error together
+};
+
+Outcome turnfield(const std::string& arguments) {
+  const std::string command = std::string(TF_BINARY) + " " + arguments + " 2>&1";
+  FILE* pipe = popen(command.c_str(), "r");
+  REQUIRE(pipe != nullptr);
+  std::string output;
+  std::array<char, 4096> buffer{};
+  while (fgets(buffer.data(), buffer.size(), pipe)) output += buffer.data();
+  const int raw = pclose(pipe);
+  return {WIFEXITED(raw) ? WEXITSTATUS(raw) : -1, output};
+}
+
+fs::path fresh_folder(const std::string& name) {
+  const fs::path dir = fs::temp_directory_path() / ("turnfield_test_" + name);
+  fs::remove_all(dir);
+  return dir;
+}
+
+nlohmann::json read_summary(const fs::path& dir) {
+  std::ifstream in(dir / "summary.json");
+  REQUIRE(in.good());
+  return nlohmann::json::parse(in);
+}
+
+}  // namespace
+
+TEST_CASE("every bad case file: exit status 2, a message naming the file and line, and nothing written") {
+  const fs::path bad = fs::path(TF_SOURCE_DIR) / "tests" / "data" / "bad";
+  int n_files = 0;
+  for (const auto& entry : fs::directory_iterator(bad)) {
+    if (entry.path().extension() != ".toml") continue;
+    ++n_files;
+    const std::string file = entry.path().string();
+    INFO(file);
+    const Outcome check = turnfield("check " + file);
+    CHECK(check.status == 2);
+    CHECK(check.output.find(file + ":") != std::string::npos);
+    // What was expected: spelt out, or the valid key suggested, or the TOML syntax rule broken.
+    const bool says_what = check.output.find("expected") != std::string::npos ||
+                           check.output.find("did you mean") != std::string::npos ||
+                           check.output.find("not valid TOML") != std::string::npos;
+    CHECK(says_what);
+    const fs::path out = fresh_folder("bad");
+    const Outcome run = turnfield("run " + file + " --out " + out.string());
+    CHECK(run.status == 2);
+    CHECK_FALSE(fs::exists(out));
+  }
+  CHECK(n_files >= 25);
+}
+
+TEST_CASE("a missing case file and a bad command line are bad input too") {
+  const Outcome missing = turnfield("check /nonexistent/case.toml");
+  CHECK(missing.status == 2);
+  CHECK(missing.output.find("/nonexistent/case.toml") != std::string::npos);
+  CHECK(turnfield("frobnicate").status == 2);
+  CHECK(turnfield("run").status == 2);
+  const std::string demo = std::string(TF_SOURCE_DIR) + "/cases/pump24_three_phase.toml";
+  CHECK(turnfield("run " + demo + " --fineness 0").status == 2);
+}
+
+TEST_CASE("winding prints the slot table and factors, as text and as JSON") {
+  const std::string demo = std::string(TF_SOURCE_DIR) + "/cases/pump24_three_phase.toml";
+  const Outcome text = turnfield("winding " + demo);
+  CHECK(text.status == 0);
+  CHECK(text.output.find("q = 2") != std::string::npos);
+  const Outcome json = turnfield("winding --json " + demo);
+  REQUIRE(json.status == 0);
+  const auto j = nlohmann::json::parse(json.output);
+  CHECK(j["coil_sides"].size() == 48);
+  CHECK(j["winding_factors"].size() == 13);
+  // 24 slots, 4 poles, pitch 5/6: k_w1 = 0.9330 (../shared/CHECKS.md §2).
+  CHECK(j["winding_factors"][0]["total"].get<double>() == doctest::Approx(0.9330).epsilon(1e-4));
+}
+
+TEST_CASE("every case in cases/ runs headless on a coarse mesh and gives a sound rotating field") {
+  // Balanced windings fed by balanced currents: constant amplitude, no backward wave, the axis
+  // turning 360°/(pK) per step (standard theory, ../shared/CHECKS.md §3). Demo data are invented.
+  for (const auto& entry : fs::directory_iterator(fs::path(TF_SOURCE_DIR) / "cases")) {
+    if (entry.path().extension() != ".toml") continue;
+    INFO(entry.path().string());
+    const fs::path out = fresh_folder(entry.path().stem().string());
+    const Outcome run = turnfield("run " + entry.path().string() + " --fineness 0.5 --field-files 2 --out " + out.string());
+    REQUIRE(run.status == 0);
+    CHECK(run.output.find("design estimates") != std::string::npos);
+    const auto s = read_summary(out);
+    const auto& field = s["field"];
+    CHECK(field["amplitude_ripple"].get<double>() < 0.01);
+    CHECK(field["backward_forward_ratio"].get<double>() < 0.01);
+    CHECK(field["rotation_uniformity_deg"].get<double>() < 0.05);
+    // Air-gap fundamental in the range of real machines (0.2 .. 1.2 T; common practice).
+    CHECK(field["fundamental_T"].get<double>() > 0.2);
+    CHECK(field["fundamental_T"].get<double>() < 1.2);
+    for (const char* f : {"steps.csv", "gap_field.csv", "harmonics.csv", "winding.csv", "field.pvd", "field_0000.vtu"})
+      CHECK(fs::exists(out / f));
+    // No temporary file is left behind.
+    for (const auto& written : fs::directory_iterator(out)) CHECK(written.path().filename().string()[0] != '.');
+  }
+}
