@@ -61,11 +61,11 @@ void print_summary(std::ostream& out, const Case& c, const mesh::Winding& w, con
   out << fmt::format("  {} slots, {} poles, {} phases, q = {}, winding factor {:.4f} (distribution {:.4f} x pitch {:.4f})\n",
                      c.geometry.stator.n_slots, c.winding.n_poles, c.winding.n_phases, w.slots_per_pole_per_phase(),
                      k.total, k.distribution, k.pitch);
-  out << fmt::format("  air-gap B_r fundamental   {:.4f} T   amplitude ripple {:.3f} %\n", x.mean_fundamental,
+  out << fmt::format("  air-gap B_r fundamental   {:.4f} T   amplitude ripple {:.4f} %\n", x.mean_fundamental,
                      100 * x.amplitude_ripple);
   out << fmt::format("  peak |B_r|                {:.4f} .. {:.4f} T   peak-field ripple {:.2f} %\n", x.min_peak,
                      x.max_peak, 100 * x.peak_ripple);
-  out << fmt::format("  rotation                  {:.3f} deg per step expected, worst deviation {:.3f} deg\n",
+  out << fmt::format("  rotation                  {:.3f} deg per step expected, worst deviation {:.4f} deg\n",
                      x.expected_step_deg, x.rotation_uniformity_deg);
   out << fmt::format("  backward/forward ratio    {:.4f}   harmonic distortion {:.2f} %\n", x.backward_forward_ratio,
                      100 * x.mean_distortion);

@@ -12,8 +12,17 @@ namespace tf::mesh {
 namespace {
 
 constexpr double kPi = std::numbers::pi;
-// The rotor is cut into this many sectors: few enough that the slice at the centre is not a sliver.
-constexpr int kRotorSectors = 4;
+// The rotor is meshed as one sector and copied round like the stator: the more sectors, the less
+// Gmsh has to mesh (measured: a quarter rotor took 1.4 s of a 2.7 s run at 100k unknowns). The
+// copies meet at the centre, so the apex angle 360°/n is kept at 10° or more.
+constexpr int kMostRotorSectors = 36;
+
+/// The largest divisor of n_slots not above kMostRotorSectors: it divides the sliding-circle node count.
+int rotor_sectors(int n_slots) {
+  for (int r = std::min(n_slots, kMostRotorSectors); r > 1; --r)
+    if (n_slots % r == 0) return r;
+  return n_slots;
+}
 
 }  // namespace
 
@@ -35,15 +44,15 @@ Mesh build(const Geometry& g, int n_layers, const MeshControls& c) {
     return std::min(h.largest, h.gap + h.grading * away);
   };
   const int n_slots = g.stator.n_slots;
-  int per_slot = std::max(2, static_cast<int>(std::ceil(2 * kPi * r_slide / n_slots / h.gap)));
-  while ((n_slots * per_slot) % kRotorSectors != 0) ++per_slot;
+  const int per_slot = std::max(2, static_cast<int>(std::ceil(2 * kPi * r_slide / n_slots / h.gap)));
   const int n_sliding = n_slots * per_slot;
+  const int n_rotor = rotor_sectors(n_slots);
 
   detail::GmshSession session;
   const detail::SectorMesh stator = detail::mesh_stator_sector(g, n_layers, per_slot, size);
   const detail::SectorMesh rotor =
-      detail::mesh_rotor_sector(g, kRotorSectors, stator.start_angle, n_sliding / kRotorSectors, size);
-  return detail::replicate(g, stator, n_slots, rotor, kRotorSectors);
+      detail::mesh_rotor_sector(g, n_rotor, stator.start_angle, n_sliding / n_rotor, size);
+  return detail::replicate(g, stator, n_slots, rotor, n_rotor);
 }
 
 }  // namespace tf::mesh
