@@ -80,7 +80,7 @@ void run_case(const Case& c, const RunOptions& options, std::ostream& out) {
   post::RunRecord record;
   auto t = Clock::now();
   progress.stage("meshing");
-  const mesh::Mesh m = mesh::build(c.geometry, c.winding.n_layers, c.mesh);
+  const mesh::Mesh m = mesh::build(c.geometry, mesh::slot_layers(c.winding), c.mesh);
   const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator.n_slots);
   record.seconds.push_back({"mesh", seconds_since(t)});
 
@@ -126,7 +126,7 @@ void run_case(const Case& c, const RunOptions& options, std::ostream& out) {
 void mesh_case(const Case& c, const fs::path& out_dir, std::ostream& out) {
   Progress progress;
   progress.stage("meshing");
-  const mesh::Mesh m = mesh::build(c.geometry, c.winding.n_layers, c.mesh);
+  const mesh::Mesh m = mesh::build(c.geometry, mesh::slot_layers(c.winding), c.mesh);
   progress.finish();
   std::error_code ec;
   fs::create_directories(out_dir, ec);

@@ -38,7 +38,7 @@ int main(int argc, char** argv) {
 
   std::vector<std::pair<std::string, double>> stage;
   auto t = Clock::now();
-  const mesh::Mesh m = mesh::build(c.geometry, c.winding.n_layers, c.mesh);
+  const mesh::Mesh m = mesh::build(c.geometry, mesh::slot_layers(c.winding), c.mesh);
   const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator.n_slots);
   stage.push_back({"mesh", since(t)});
 

@@ -34,7 +34,7 @@ ElementSizes element_sizes(const Geometry& g, const MeshControls& c) {
   return {g.gap_length() / across_gap, largest, 0.25};
 }
 
-Mesh build(const Geometry& g, int n_layers, const MeshControls& c) {
+Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
   const ElementSizes h = element_sizes(g, c);
   const double r_slide = g.mid_gap_radius();
   const double half_gap = 0.5 * g.gap_length();
@@ -49,7 +49,7 @@ Mesh build(const Geometry& g, int n_layers, const MeshControls& c) {
   const int n_rotor = rotor_sectors(n_slots);
 
   detail::GmshSession session;
-  const detail::SectorMesh stator = detail::mesh_stator_sector(g, n_layers, per_slot, size);
+  const detail::SectorMesh stator = detail::mesh_stator_sector(g, layers, per_slot, size);
   const detail::SectorMesh rotor =
       detail::mesh_rotor_sector(g, n_rotor, stator.start_angle, n_sliding / n_rotor, size);
   return detail::replicate(g, stator, n_slots, rotor, n_rotor);

@@ -15,8 +15,8 @@ struct ElementSizes {
 ElementSizes element_sizes(const Geometry& g, const MeshControls& c);
 
 /// Meshes one stator slot pitch and one rotor sector with Gmsh and copies them round by rotation,
-/// merging the nodes on the cuts: every slot gets the identical mesh. n_layers is the number of
-/// coil layers each slot is split into. Throws MeshError.
-Mesh build(const Geometry& g, int n_layers, const MeshControls& c);
+/// merging the nodes on the cuts: every slot gets the identical mesh. `layers` says how each slot
+/// is divided among coil sides. Throws MeshError.
+Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c);
 
 }  // namespace tf::mesh

@@ -19,11 +19,35 @@ struct Slot {
   double wedge_height = 0.0;   ///< semi-closed: air between the tips and the coil [m]
 };
 
+enum class StatorKind {
+  slotted,  ///< a yoke with Q slots in its bore
+  salient,  ///< P projecting poles, each carrying a concentrated coil round its body
+};
+
+/// Projecting poles of a salient-pole stator. Pole k is centred at 2*pi*(k - 1)/P.
+struct SalientPoles {
+  double shoe_arc = 0.0;     ///< angle spanned by the pole face at the bore [rad], mechanical
+  double shoe_height = 0.0;  ///< radial thickness of the pole shoe at its tips [m]
+  double body_width = 0.0;   ///< width of the parallel-sided pole body [m]
+  double body_height = 0.0;  ///< radial length of the body, from the shoe to the yoke [m]
+  double coil_width = 0.0;   ///< tangential thickness of each coil side beside the body [m]
+  double coil_height = 0.0;  ///< radial length of each coil side, from the shoe outwards [m]
+};
+
 struct StatorGeometry {
-  double bore_radius = 0.0;   ///< [m]
+  StatorKind kind = StatorKind::slotted;
+  double bore_radius = 0.0;   ///< [m]: the slotted bore, or the circle of the pole faces
   double outer_radius = 0.0;  ///< [m], A = 0 is imposed here
-  int n_slots = 0;
-  Slot slot;
+  int n_slots = 0;            ///< slots Q; for a salient-pole stator, the number of poles P
+  Slot slot;                  ///< slotted stators only
+  SalientPoles poles;         ///< salient-pole stators only
+};
+
+/// How each slot is divided among coil sides. Salient-pole stators always carry two sides per
+/// pole, one on each side of its body (layer 1 counter-clockwise of the body, layer 2 clockwise).
+struct SlotLayers {
+  int count = 1;              ///< 1 or 2 coil sides per slot
+  bool side_by_side = false;  ///< two layers split tangentially (tooth coils), not radially
 };
 
 enum class RotorKind {

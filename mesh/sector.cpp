@@ -164,11 +164,11 @@ SectorMesh with_context(const char* what, Build build) {
 
 }  // namespace
 
-SectorMesh mesh_stator_sector(const Geometry& g, int n_layers, int n_sliding_segments, const SizeRule& size) {
+SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n_sliding_segments, const SizeRule& size) {
   return with_context("stator slot pitch", [&] {
     const double a = std::numbers::pi / g.stator.n_slots;
     const SectorFrame f{-a, 2 * a, g.mid_gap_radius(), g.stator.outer_radius, 1e-6 * g.stator.outer_radius};
-    return mesh_pieces(build_stator_pieces(g, n_layers), f, n_sliding_segments, size);
+    return mesh_pieces(build_stator_pieces(g, layers), f, n_sliding_segments, size);
   });
 }
 

@@ -38,7 +38,7 @@ using SizeRule = std::function<double(double x, double y)>;
 
 /// The stator slot pitch centred on slot 1 (on the +x axis), from the sliding circle to the
 /// outer surface, with n_sliding_segments equal segments on the sliding arc.
-SectorMesh mesh_stator_sector(const Geometry& g, int n_layers, int n_sliding_segments, const SizeRule& size);
+SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n_sliding_segments, const SizeRule& size);
 
 /// A rotor sector of span 2*pi/n_sectors starting at start_angle, from the centre to the sliding circle.
 SectorMesh mesh_rotor_sector(const Geometry& g, int n_sectors, double start_angle,

@@ -25,6 +25,11 @@ int add_slot_rectangle(double x0, double x1, double width) {
   return occ::addRectangle(x0, -0.5 * width, 0.0, x1 - x0, width);
 }
 
+/// The same, between y0 < y1 across the centre line.
+int add_slot_rectangle(double x0, double x1, double y0, double y1) {
+  return occ::addRectangle(x0, y0, 0.0, x1 - x0, y1 - y0);
+}
+
 bool contains(const gmsh::vectorpair& list, int tag) {
   for (const auto& [dim, t] : list)
     if (dim == 2 && t == tag) return true;
@@ -38,7 +43,7 @@ struct LabelledShape {
 
 /// The slot's pieces, from the gap upwards. The lowest piece reaches below the bore so that it
 /// cuts the bore arc cleanly; what lies below the bore is discarded after the fragment.
-std::vector<LabelledShape> slot_shapes(const StatorGeometry& s, int n_layers) {
+std::vector<LabelledShape> slot_shapes(const StatorGeometry& s, const SlotLayers& layers) {
   const double r_b = s.bore_radius;
   const double x_low = 0.5 * r_b;
   const double x_bottom = r_b + s.slot.depth;
@@ -54,7 +59,15 @@ std::vector<LabelledShape> slot_shapes(const StatorGeometry& s, int n_layers) {
       coil_start = wedge_top;
     }
   }
+  if (layers.side_by_side) {
+    // Tooth coils: layer 1 on the counter-clockwise side of the centre line (y > 0), layer 2 clockwise.
+    const double w = 0.5 * s.slot.width;
+    shapes.push_back({add_slot_rectangle(coil_start, x_bottom, 0.0, w), {RegionKind::coil, 1}});
+    shapes.push_back({add_slot_rectangle(coil_start, x_bottom, -w, 0.0), {RegionKind::coil, 2}});
+    return shapes;
+  }
   // Layer 1 is the one nearest the gap. Layers share the coil height equally.
+  const int n_layers = layers.count;
   const double coil_floor = (s.slot.shape == SlotShape::open) ? r_b : coil_start;
   const double layer_height = (x_bottom - coil_floor) / n_layers;
   for (int layer = 1; layer <= n_layers; ++layer) {
@@ -84,11 +97,11 @@ int add_annular_sector(double r_in, double r_out, double a0, double a1) {
   return occ::addPlaneSurface({occ::addCurveLoop(loop)});
 }
 
-std::vector<Piece> build_stator_pieces(const Geometry& g, int n_layers) {
+std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& layers) {
   const StatorGeometry& s = g.stator;
   const double a = std::numbers::pi / s.n_slots;
   const int stator = add_annular_sector(s.bore_radius, s.outer_radius, -a, a);
-  const std::vector<LabelledShape> slot = slot_shapes(s, n_layers);
+  const std::vector<LabelledShape> slot = slot_shapes(s, layers);
 
   gmsh::vectorpair tools, out;
   for (const auto& shape : slot) tools.push_back({2, shape.tag});

@@ -18,7 +18,7 @@ struct Piece {
 int add_annular_sector(double r_in, double r_out, double a0, double a1);
 
 /// The slot pitch centred on the +x axis, from the sliding circle to the outer radius.
-std::vector<Piece> build_stator_pieces(const Geometry& g, int n_layers);
+std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& layers);
 
 /// The rotor sector between angles a0 and a1, from the centre to the sliding circle.
 std::vector<Piece> build_rotor_pieces(const Geometry& g, double a0, double a1);

@@ -1,6 +1,8 @@
 #pragma once
 // What the user asks of a winding. The layout that follows from it is in winding.hpp.
 
+#include "mesh/geometry.hpp"
+
 namespace tf::mesh {
 
 struct WindingSpec {
@@ -13,5 +15,8 @@ struct WindingSpec {
 
   int pole_pairs() const { return n_poles / 2; }
 };
+
+/// The slot division a winding needs: tooth coils (pitch 1) lie side by side, others over/under.
+inline SlotLayers slot_layers(const WindingSpec& w) { return {w.n_layers, w.n_layers == 2 && w.coil_pitch == 1}; }
 
 }  // namespace tf::mesh

@@ -91,7 +91,7 @@ void check_merged(const mesh::Mesh& m) {
 
 TEST_CASE("open-slot stator, two layers: regions, identical slots, sliding circle, gap layers") {
   const auto g = testing::open_slot_stator();
-  const mesh::Mesh m = mesh::build(g, 2, {0.5});
+  const mesh::Mesh m = mesh::build(g, {2}, {0.5});
   check_mesh(g, 2, m);
   check_sliding_circle(g, m);
   check_gap_layers(g, m);
@@ -102,7 +102,7 @@ TEST_CASE("open-slot stator, two layers: regions, identical slots, sliding circl
 
 TEST_CASE("semi-closed stator, one layer, and a bore with no rotor") {
   auto g = testing::semi_closed_stator();
-  const mesh::Mesh m = mesh::build(g, 1, {0.5});
+  const mesh::Mesh m = mesh::build(g, {1}, {0.5});
   check_mesh(g, 1, m);
   check_sliding_circle(g, m);
   check_gap_layers(g, m);
@@ -110,7 +110,7 @@ TEST_CASE("semi-closed stator, one layer, and a bore with no rotor") {
   CHECK(mesh::find_region(m, mesh::RegionKind::shaft) >= 0);
 
   g.rotor.kind = mesh::RotorKind::none;
-  const mesh::Mesh air = mesh::build(g, 2, {0.5});
+  const mesh::Mesh air = mesh::build(g, {2}, {0.5});
   check_mesh(g, 2, air);
   CHECK(mesh::find_region(air, mesh::RegionKind::bore_air) >= 0);
   CHECK(mesh::find_region(air, mesh::RegionKind::rotor_iron) < 0);
@@ -118,8 +118,8 @@ TEST_CASE("semi-closed stator, one layer, and a bore with no rotor") {
 
 TEST_CASE("the fineness knob refines the mesh") {
   const auto g = testing::semi_closed_stator();
-  const auto coarse = mesh::build(g, 2, {0.5});
-  const auto fine = mesh::build(g, 2, {1.5});
+  const auto coarse = mesh::build(g, {2}, {0.5});
+  const auto fine = mesh::build(g, {2}, {1.5});
   CHECK(fine.n_triangles() > 1.5 * coarse.n_triangles());
   CHECK(fine.sliding.stator_nodes.size() > coarse.sliding.stator_nodes.size());
 }

@@ -8,7 +8,7 @@ namespace tf::testing {
 /// 36 slots, open rectangular slots, iron rotor: bore 60 mm, outer 100 mm, 0.5 mm gap.
 inline mesh::Geometry open_slot_stator() {
   mesh::Geometry g;
-  g.stator = {0.060, 0.100, 36, {mesh::SlotShape::open, 0.005, 0.018, 0.0, 0.0, 0.0}};
+  g.stator = {mesh::StatorKind::slotted, 0.060, 0.100, 36, {mesh::SlotShape::open, 0.005, 0.018, 0.0, 0.0, 0.0}, {}};
   g.rotor = {mesh::RotorKind::iron, 0.0595, 0.020};
   return g;
 }
@@ -16,7 +16,7 @@ inline mesh::Geometry open_slot_stator() {
 /// 24 slots, semi-closed slots with tips and a wedge: bore 50 mm, outer 85 mm, 0.4 mm gap.
 inline mesh::Geometry semi_closed_stator() {
   mesh::Geometry g;
-  g.stator = {0.050, 0.085, 24, {mesh::SlotShape::semi_closed, 0.007, 0.016, 0.0025, 0.0008, 0.0007}};
+  g.stator = {mesh::StatorKind::slotted, 0.050, 0.085, 24, {mesh::SlotShape::semi_closed, 0.007, 0.016, 0.0025, 0.0008, 0.0007}, {}};
   g.rotor = {mesh::RotorKind::iron, 0.0496, 0.016};
   return g;
 }
