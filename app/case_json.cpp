@@ -1,26 +1,76 @@
 #include "app/case_json.hpp"
 
+#include <numbers>
+
+#include <cmath>
+
 #include <nlohmann/json.hpp>
 
+#include "post/sequence.hpp"
+
 namespace tf::app {
+namespace {
+
+constexpr double kDeg = 180.0 / 3.14159265358979323846;
+const char* kSupplyKinds[] = {"balanced", "phasors", "stepped_dc", "split_phase"};
+const char* kElements[] = {"resistor", "inductor", "capacitor"};
+
+nlohmann::json supply_json(const solver::Supply& s) {
+  nlohmann::json j = {{"kind", kSupplyKinds[static_cast<int>(s.kind)]}, {"frequency_Hz", s.frequency}};
+  switch (s.kind) {
+    case solver::SupplyKind::balanced: j["peak_current_A"] = s.peak_current; break;
+    case solver::SupplyKind::stepped_dc: j["states_A"] = s.states; break;
+    case solver::SupplyKind::phasors:
+      for (const auto& p : s.phasors) {
+        j["peak_currents_A"].push_back(std::abs(p));
+        j["phase_angles_deg"].push_back(std::arg(p) * kDeg);
+      }
+      break;
+    case solver::SupplyKind::split_phase:
+      j["voltage_rms_V"] = s.split.voltage_rms;
+      j["resistances_ohm"] = s.split.resistance;
+      j["series_element"] = kElements[static_cast<int>(s.split.element)];
+      j["series_phase"] = s.split.element_phase == 0 ? "A" : "B";
+      if (s.split.element_value > 0.0) j["series_value"] = s.split.element_value;
+      break;
+  }
+  return j;
+}
+
+}  // namespace
 
 std::string case_to_json(const Case& c) {
   using nlohmann::json;
   const auto& s = c.geometry.stator;
   const auto& r = c.geometry.rotor;
-  json slot = {{"shape", s.slot.shape == mesh::SlotShape::open ? "open" : "semi_closed"},
-               {"width_m", s.slot.width},
-               {"depth_m", s.slot.depth}};
-  if (s.slot.shape == mesh::SlotShape::semi_closed) {
-    slot["opening_m"] = s.slot.opening_width;
-    slot["tip_height_m"] = s.slot.tip_height;
-    slot["wedge_height_m"] = s.slot.wedge_height;
+  json stator = {{"kind", s.kind == mesh::StatorKind::salient ? "salient" : "slotted"},
+                 {"bore_radius_m", s.bore_radius},
+                 {"outer_radius_m", s.outer_radius}};
+  if (s.kind == mesh::StatorKind::salient) {
+    stator["poles"] = {{"count", s.n_slots},
+                       {"shoe_arc_deg", s.poles.shoe_arc * 180.0 / std::numbers::pi},
+                       {"shoe_height_m", s.poles.shoe_height},
+                       {"body_width_m", s.poles.body_width},
+                       {"body_height_m", s.poles.body_height},
+                       {"coil_width_m", s.poles.coil_width},
+                       {"coil_height_m", s.poles.coil_height}};
+  } else {
+    json slot = {{"shape", s.slot.shape == mesh::SlotShape::open ? "open" : "semi_closed"},
+                 {"width_m", s.slot.width},
+                 {"depth_m", s.slot.depth}};
+    if (s.slot.shape == mesh::SlotShape::semi_closed) {
+      slot["opening_m"] = s.slot.opening_width;
+      slot["tip_height_m"] = s.slot.tip_height;
+      slot["wedge_height_m"] = s.slot.wedge_height;
+    }
+    stator["slots"] = s.n_slots;
+    stator["slot"] = slot;
   }
   json j = {
       {"case_file", c.path},
       {"title", c.title},
       {"stack_length_m", c.stack_length},
-      {"stator", {{"bore_radius_m", s.bore_radius}, {"outer_radius_m", s.outer_radius}, {"slots", s.n_slots}, {"slot", slot}}},
+      {"stator", stator},
       {"rotor",
        {{"kind", r.kind == mesh::RotorKind::iron ? "iron" : "none"},
         {"outer_radius_m", r.outer_radius},
@@ -37,7 +87,7 @@ std::string case_to_json(const Case& c) {
         {"coil_pitch_slots", c.winding.coil_pitch},
         {"turns_per_coil", c.winding.turns_per_coil},
         {"parallel_paths", c.winding.parallel_paths}}},
-      {"supply", {{"peak_current_A", c.supply.peak_current}, {"frequency_Hz", c.supply.frequency}}},
+      {"supply", supply_json(c.supply)},
       {"study",
        {{"steps", c.study.n_steps},
         {"field_files", c.study.n_field_files},
@@ -45,6 +95,39 @@ std::string case_to_json(const Case& c) {
         {"harmonics", c.study.max_harmonic}}},
       {"mesh", {{"fineness", c.mesh.fineness}}},
   };
+  return j.dump();
+}
+
+}  // namespace tf::app
+
+namespace tf::app {
+
+std::string drive_to_json(const solver::Supply& resolved, int n_phases, const DriveReport& report) {
+  nlohmann::json j;
+  j["inductance_H"] = nlohmann::json::array();
+  for (Eigen::Index r = 0; r < report.inductance.rows(); ++r) {
+    std::vector<double> row(report.inductance.cols());
+    for (Eigen::Index k = 0; k < report.inductance.cols(); ++k) row[k] = report.inductance(r, k);
+    j["inductance_H"].push_back(row);
+  }
+  j["inductance_note"] = "2D field only (slots and gap), per the stack length; end windings are not included";
+  if (resolved.kind == solver::SupplyKind::stepped_dc) return j.dump();
+  const auto phasors = solver::supply_phasors(resolved, n_phases);
+  for (std::size_t k = 0; k < phasors.size(); ++k)
+    j["phase_currents"].push_back({{"phase", std::string(1, static_cast<char>('A' + k))},
+                                   {"peak_A", std::abs(phasors[k])},
+                                   {"angle_deg", std::arg(phasors[k]) * kDeg}});
+  if (n_phases >= 2) {
+    const auto seq = post::sequence_components(phasors);
+    j["sequence_components_peak_A"] = {{"positive", std::abs(seq.positive)}, {"negative", std::abs(seq.negative)},
+                                       {"zero", std::abs(seq.zero)}};
+  }
+  if (resolved.kind == solver::SupplyKind::split_phase) {
+    j["series_element"] = {{"kind", kElements[static_cast<int>(resolved.split.element)]},
+                           {"value", report.element_value},
+                           {"sized_for_best_field", report.element_sized}};
+    j["current_B_leads_A_deg"] = std::arg(phasors[1] / phasors[0]) * kDeg;
+  }
   return j.dump();
 }
 

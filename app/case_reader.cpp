@@ -5,12 +5,14 @@
 #include <cstring>
 #include <filesystem>
 #include <fstream>
+#include <numbers>
 #include <sstream>
 
 #include <fmt/format.h>
 
 #include "app/case_validation.hpp"
 #include "app/input_error.hpp"
+#include "app/read_drive.hpp"
 #include "app/toml_fields.hpp"
 
 namespace tf::app {
@@ -59,12 +61,41 @@ mesh::Slot read_slot(const Fields& stator) {
   return slot;
 }
 
+/// [stator.poles] of a salient-pole stator. The count goes to n_slots: to the winding, each pole
+/// (with its two coil sides) is a slot.
+void read_poles(const Fields& stator, mesh::StatorGeometry& s) {
+  const Fields f = stator.table(
+      "poles", {"count", "shoe_arc_deg", "shoe_height", "body_width", "body_height", "coil_width", "coil_height"});
+  s.n_slots = f.integer("count", {.min = 2, .max = 200});
+  if (s.n_slots % 2 != 0) f.fail("count", "an odd number", "an even number of poles");
+  // Up to, not including, the pole pitch; that the shoes leave room between them is a consistency check.
+  const RealRange arc{
+      .min = 0, .max = 360.0 / s.n_slots, .min_excluded = true, .max_excluded = true, .unit = "degrees"};
+  s.poles.shoe_arc = f.real("shoe_arc_deg", arc) * std::numbers::pi / 180.0;
+  s.poles.shoe_height = f.real("shoe_height", slot_size);
+  s.poles.body_width = f.real("body_width", slot_size);
+  s.poles.body_height = f.real("body_height", slot_size);
+  s.poles.coil_width = f.real("coil_width", slot_size);
+  s.poles.coil_height = f.real("coil_height", slot_size);
+}
+
 mesh::StatorGeometry read_stator(const Fields& root) {
-  const Fields f = root.table("stator", {"bore_radius", "outer_radius", "slots", "slot"});
+  const Fields f = root.table("stator", {"kind", "bore_radius", "outer_radius", "slots", "slot", "poles"});
   mesh::StatorGeometry s;
+  const bool salient = f.has("kind") && f.choice("kind", {"slotted", "salient"}) == 1;
+  s.kind = salient ? mesh::StatorKind::salient : mesh::StatorKind::slotted;
   s.bore_radius = f.real("bore_radius", radius);
   // Only the plain range here; "larger than the bore" is a consistency check, after all keys.
   s.outer_radius = f.real("outer_radius", radius);
+  // Keys of the other kind are most likely left over from another case; ignoring them would hide it.
+  if (salient) {
+    f.reject("slots", "not used by salient-pole stators",
+             "no such key (the poles are counted by [stator.poles] count), or kind = \"slotted\"");
+    f.reject("slot", "not used by salient-pole stators", "no such table, or kind = \"slotted\"");
+    read_poles(f, s);
+    return s;
+  }
+  f.reject("poles", "not used by slotted stators", "no such table, or kind = \"salient\"");
   s.n_slots = f.integer("slots", {.min = 3, .max = 2000});
   s.slot = read_slot(f);
   return s;
@@ -100,35 +131,16 @@ solver::Materials read_materials(const Fields& root, mesh::RotorKind rotor) {
   return m;
 }
 
-mesh::WindingSpec read_winding(const Fields& root) {
-  const Fields f =
-      root.table("winding", {"phases", "poles", "layers", "coil_pitch", "turns_per_coil", "parallel_paths"});
-  mesh::WindingSpec w;
-  w.n_phases = f.integer("phases", {.min = 1, .max = 12});
-  w.n_poles = f.integer("poles", {.min = 2, .max = 2000});
-  if (w.n_poles % 2 != 0)
-    f.fail("poles", "an odd number", "an even number: poles come in north-south pairs (2p)");
-  w.n_layers = f.integer("layers", {.min = 1, .max = 2});
-  // The upper limit, the pole pitch, depends on the slots: checked with the winding layout.
-  w.coil_pitch = f.integer("coil_pitch", {.min = 1});
-  w.turns_per_coil = f.integer("turns_per_coil", {.min = 1});
-  w.parallel_paths = f.integer_or("parallel_paths", 1, {.min = 1});
-  return w;
-}
-
-solver::Supply read_supply(const Fields& root) {
-  const Fields f = root.table("supply", {"peak_current", "frequency"});
-  solver::Supply s;
-  s.peak_current = f.real("peak_current", {.min = 0, .unit = "A"});
-  s.frequency = f.real("frequency", {.min = 0, .min_excluded = true, .unit = "Hz"});
-  return s;
-}
-
-Study read_study(const Fields& root) {
+Study read_study(const Fields& root, const solver::Supply& supply) {
   Study s;
+  // Stepped DC: one step per state.
+  const bool states = supply.kind == solver::SupplyKind::stepped_dc;
+  if (states) s.n_steps = static_cast<int>(supply.states.size());
+  s.n_field_files = std::min(s.n_field_files, s.n_steps);
   const auto f = root.optional_table("study", {"steps", "field_files", "gap_points", "harmonics"});
   if (!f) return s;
-  s.n_steps = f->integer_or("steps", s.n_steps, {.min = 3, .max = 100000});
+  if (states) f->reject("steps", "not used with a stepped DC supply", "no such key: each state is one step");
+  s.n_steps = f->integer_or("steps", s.n_steps, {.min = states ? 2 : 3, .max = 100000});
   // "No more than the steps" is a consistency check, so its message can name the steps.
   s.n_field_files = f->integer_or("field_files", std::min(36, s.n_steps), {.min = 0, .max = 100000});
   // At least 720 points on the mid-gap circle, half a degree apart (../shared/DESIGN.md §3).
@@ -155,9 +167,9 @@ Case read_fields(const Document& doc) {
   c.geometry.stator = read_stator(root);
   c.geometry.rotor = read_rotor(root);
   c.materials = read_materials(root, c.geometry.rotor.kind);
-  c.winding = read_winding(root);
-  c.supply = read_supply(root);
-  c.study = read_study(root);
+  c.winding = read_winding(root, c.geometry.stator);
+  c.supply = read_supply(root, c.winding.n_phases);
+  c.study = read_study(root, c.supply);
   c.mesh = read_mesh(root);
   return c;
 }

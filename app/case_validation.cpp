@@ -1,5 +1,7 @@
 #include "app/case_validation.hpp"
 
+#include "mesh/winding.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <numbers>
@@ -7,6 +9,8 @@
 #include <vector>
 
 #include <fmt/format.h>
+
+#include "mesh/salient_outline.hpp"
 
 namespace tf::app {
 namespace {
@@ -18,6 +22,10 @@ constexpr double min_yoke = 1.0e-3;
 constexpr double min_gap = 0.05e-3;
 // Share of the slot depth that must remain for the coil behind the tooth tips and the wedge.
 constexpr double min_coil_share = 0.2;
+// Salient poles: as much as the thinnest tooth between parts that must not touch (neighbouring
+// shoes, neighbouring coil sides, coil and yoke) and for the shoe reaching past the body, since
+// thinner slivers of air or iron need needlessly tiny elements too.
+constexpr double min_clearance = min_tooth;
 
 std::string mm(double metres) { return fmt::format("{:.2f} mm", metres * 1e3); }
 
@@ -82,11 +90,95 @@ std::optional<Problem> slot_problem(const mesh::StatorGeometry& s) {
   return std::nullopt;
 }
 
+std::string degrees(double radians) { return fmt::format("{:.2f} degrees", radians * 180.0 / std::numbers::pi); }
+
+/// The iron of a salient pole: room between neighbouring shoes, a shoe reaching past the body on
+/// both sides, and a yoke behind the bodies.
+std::optional<Problem> pole_iron_problem(const mesh::StatorGeometry& s, const mesh::PoleOutline& o) {
+  const double pitch = 2.0 * std::numbers::pi / s.n_slots;
+  // Neighbouring shoes face each other with radial edges, so they are closest at the bore.
+  const double shoe_gap = 2.0 * s.bore_radius * std::sin(0.5 * pitch - o.half_shoe_arc);
+  if (shoe_gap < min_clearance)
+    return Problem{"stator.poles.shoe_arc_deg",
+                   fmt::format("the shoes of neighbouring poles are {} apart at the bore, closer than the minimum {}",
+                               mm(shoe_gap), mm(min_clearance)),
+                   fmt::format("a shoe arc at most {}",
+                               degrees(pitch - 2.0 * std::asin(min_clearance / (2.0 * s.bore_radius))))};
+  // The body joins the shoe at the shoe back, where the shoe is narrowest.
+  const double half_chord = o.shoe_back_radius * std::sin(o.half_shoe_arc);
+  const double overhang = half_chord - o.body_half_width;
+  if (overhang < min_clearance) {
+    const std::string where =
+        fmt::format("the shoe back ({} across at r = {})", mm(2 * half_chord), mm(o.shoe_back_radius));
+    const double widest = 2.0 * (half_chord - min_clearance);
+    return Problem{"stator.poles.body_width",
+                   overhang <= 0 ? fmt::format("the body is not narrower than {}", where)
+                                 : fmt::format("the shoe reaches only {} past the body on each side at {}, "
+                                               "less than the minimum {}",
+                                               mm(overhang), where, mm(min_clearance)),
+                   widest > 0 ? fmt::format("a body width at most {}", mm(widest)) : "a wider shoe (shoe_arc_deg)"};
+  }
+  const double yoke = s.outer_radius - o.yoke_radius;
+  if (yoke >= min_yoke) return std::nullopt;
+  const std::string reach =
+      fmt::format("the pole bodies reach r = {} (bore + shoe_height + body_height)", mm(o.yoke_radius));
+  return Problem{"stator.poles.body_height",
+                 yoke <= 0 ? fmt::format("{}, through the outer radius {}", reach, mm(s.outer_radius))
+                           : fmt::format("{}, leaving a yoke of {}, thinner than the minimum {}", reach, mm(yoke),
+                                         mm(min_yoke)),
+                 fmt::format("shoe_height + body_height at most {}", mm(s.outer_radius - min_yoke - s.bore_radius))};
+}
+
+/// The coil sides beside a salient pole's body: within the body's length, clear of the neighbouring
+/// pole's coil side and of the yoke.
+std::optional<Problem> pole_coil_problem(const mesh::StatorGeometry& s, const mesh::PoleOutline& o) {
+  const mesh::SalientPoles& p = s.poles;
+  if (p.coil_height > p.body_height)
+    return Problem{"stator.poles.coil_height",
+                   fmt::format("the coil sides are longer than the pole body (body_height = {})", mm(p.body_height)),
+                   fmt::format("a coil height at most {}", mm(p.body_height))};
+  // A coil side's outer edge is parallel to the pole centre line, so it comes closest to the line
+  // halfway to the next pole at its inner corner; the next pole's coil side mirrors it there.
+  const double half_pitch = std::numbers::pi / s.n_slots;
+  const double to_middle = o.coil_floor * std::sin(half_pitch) - o.coil_outer_y * std::cos(half_pitch);
+  if (2.0 * to_middle < min_clearance) {
+    const std::string where =
+        fmt::format("at their gap-side corners (r = {})", mm(std::hypot(o.coil_floor, o.coil_outer_y)));
+    const double widest = (o.coil_floor * std::sin(half_pitch) - 0.5 * min_clearance) / std::cos(half_pitch) -
+                          o.body_half_width;
+    return Problem{"stator.poles.coil_width",
+                   to_middle <= 0 ? fmt::format("the coil sides of neighbouring poles overlap {}", where)
+                                  : fmt::format("the coil sides of neighbouring poles are {} apart {}, "
+                                                "closer than the minimum {}",
+                                                mm(2.0 * to_middle), where, mm(min_clearance)),
+                   widest > 0 ? fmt::format("a coil width at most {}", mm(widest))
+                              : "a narrower body (body_width), to leave room for the coil sides"};
+  }
+  // The yoke's inner circle curves towards the coil sides; their outer corners come closest to it.
+  const double corner = std::hypot(o.coil_top, o.coil_outer_y);
+  const double limit = o.yoke_radius - min_clearance;
+  if (corner <= limit) return std::nullopt;
+  const double highest = std::sqrt(std::max(0.0, limit * limit - o.coil_outer_y * o.coil_outer_y)) - o.coil_floor;
+  const std::string reach = fmt::format("the outer corners of the coil sides reach r = {}", mm(corner));
+  return Problem{"stator.poles.coil_height",
+                 corner >= o.yoke_radius
+                     ? fmt::format("{}, into the yoke (from r = {})", reach, mm(o.yoke_radius))
+                     : fmt::format("{}, {} short of the yoke (r = {}), closer than the minimum {}", reach,
+                                   mm(o.yoke_radius - corner), mm(o.yoke_radius), mm(min_clearance)),
+                 highest > 0 ? fmt::format("a coil height at most {}", mm(highest))
+                             : "narrower coil sides (coil_width), to leave room beside the yoke"};
+}
+
 std::optional<Problem> stator_problem(const mesh::StatorGeometry& s) {
   if (s.outer_radius <= s.bore_radius)
     return Problem{"stator.outer_radius",
                    fmt::format("the outer radius is not larger than the bore radius ({})", mm(s.bore_radius)),
                    fmt::format("an outer radius above {}", mm(s.bore_radius))};
+  if (s.kind == mesh::StatorKind::salient) {
+    const mesh::PoleOutline o = mesh::pole_outline(s);
+    if (auto p = pole_iron_problem(s, o)) return p;
+    return pole_coil_problem(s, o);
+  }
   if (auto p = slot_problem(s)) return p;
 
   // The slot bottom is flat, so its corners, half a slot width off the centre line, come
@@ -109,13 +201,14 @@ std::optional<Problem> stator_problem(const mesh::StatorGeometry& s) {
 std::optional<Problem> rotor_problem(const mesh::Geometry& g) {
   const mesh::RotorGeometry& r = g.rotor;
   const bool iron = r.kind == mesh::RotorKind::iron;
+  const char* bore = g.stator.kind == mesh::StatorKind::salient ? "the pole faces" : "the stator bore";
   const std::string expected = fmt::format("an outer radius at most {} (an air gap of at least {})",
                                            mm(g.stator.bore_radius - min_gap), mm(min_gap));
   if (g.gap_length() <= 0)
     return Problem{
         "rotor.outer_radius",
-        fmt::format("{} the stator bore (R_b = {})",
-                    iron ? "the rotor touches or overlaps" : "the inner edge of the gap band is not inside",
+        fmt::format("{} {} (R_b = {})",
+                    iron ? "the rotor touches or overlaps" : "the inner edge of the gap band is not inside", bore,
                     mm(g.stator.bore_radius)),
         expected};
   if (g.gap_length() < min_gap)
@@ -150,38 +243,67 @@ std::optional<Problem> geometry_problem(const mesh::Geometry& geometry) {
   return rotor_problem(geometry);
 }
 
-std::optional<Problem> winding_problem(const mesh::WindingSpec& w, int n_slots) {
-  const int belts = w.n_poles * w.n_phases;  // 2p·m phase belts around the bore
-  if (n_slots % belts != 0) {
-    const int common = std::gcd(n_slots, belts);
-    return Problem{
-        "winding.phases",
-        fmt::format("q = Q/(2p·m) = {}/({}·{}) = {}/{} slots per pole and phase, not a whole number", n_slots,
-                    w.n_poles, w.n_phases, n_slots / common, belts / common),
-        fmt::format("2p·m = {} to divide [stator] slots = {}, since this version lays out "
-                    "integral-slot windings only",
-                    belts, n_slots)};
-  }
+namespace {
+
+/// Pitch rules of layouts by rule on slotted stators.
+std::optional<Problem> pitch_problem(const mesh::WindingSpec& w, int n_slots, bool integral) {
   const int pole_pitch = n_slots / w.n_poles;
-  if (w.coil_pitch > pole_pitch)
+  if (integral && w.coil_pitch > pole_pitch)
     return Problem{
         "winding.coil_pitch",
         fmt::format("longer than the pole pitch of {} slots (Q/2p = {}/{})", pole_pitch, n_slots, w.n_poles),
         fmt::format("a coil pitch from 1 to {}", pole_pitch)};
-  if (w.n_layers == 1 && w.coil_pitch != pole_pitch)
+  if (integral && w.n_layers == 1 && w.coil_pitch != pole_pitch)
     return Problem{
         "winding.coil_pitch",
         fmt::format("single-layer windings are laid out full pitch here, and the pole pitch is {} slots",
                     pole_pitch),
         fmt::format("coil_pitch = {}, or layers = 2 for a short-pitched winding", pole_pitch)};
-  // A double-layer winding has one coil group per pole and phase, a single-layer one per pole pair.
-  const int groups = w.n_layers == 2 ? w.n_poles : w.n_poles / 2;
-  if (groups % w.parallel_paths != 0)
-    return Problem{"winding.parallel_paths",
-                   fmt::format("{} parallel paths cannot share the {} coil groups of a phase equally",
-                               w.parallel_paths, groups),
-                   fmt::format("a divisor of {}: {}", groups, divisors(groups))};
+  if (!integral && w.coil_pitch > n_slots / 2)
+    return Problem{"winding.coil_pitch", fmt::format("longer than half the {} slots", n_slots),
+                   fmt::format("a coil pitch from 1 to {}", n_slots / 2)};
+  if (!integral && w.n_layers == 1 && (n_slots % 2 != 0 || w.coil_pitch % 2 == 0))
+    return Problem{"winding.coil_pitch",
+                   "a single-layer fractional-slot winding puts coils in every other slot pair",
+                   "an even number of slots and an odd coil pitch, or layers = 2"};
   return std::nullopt;
+}
+
+std::optional<Problem> paths_problem(const mesh::WindingSpec& w, int n_slots, bool integral) {
+  // Integral slot: one coil group per pole and phase (double layer) or pole pair (single layer).
+  // Otherwise the layout repeats t = gcd(Q, p) times round the bore, and paths must repeat with it.
+  const int groups = integral ? (w.n_layers == 2 ? w.n_poles : w.n_poles / 2) : std::gcd(n_slots, w.pole_pairs());
+  if (groups % w.parallel_paths == 0) return std::nullopt;
+  return Problem{"winding.parallel_paths",
+                 integral ? fmt::format("{} parallel paths cannot share the {} coil groups of a phase equally",
+                                        w.parallel_paths, groups)
+                          : fmt::format("{} parallel paths cannot share a layout that repeats {} times round the bore",
+                                        w.parallel_paths, groups),
+                 fmt::format("a divisor of {}: {}", groups, divisors(groups))};
+}
+
+}  // namespace
+
+std::optional<Problem> winding_problem(const mesh::WindingSpec& w, const mesh::StatorGeometry& stator) {
+  const int n_slots = stator.n_slots;
+  const bool table = !w.explicit_sides.empty();
+  const bool slotted = stator.kind == mesh::StatorKind::slotted;
+  const bool integral = slotted && n_slots % (w.n_poles * w.n_phases) == 0;
+  if (!table && slotted)
+    if (auto p = pitch_problem(w, n_slots, integral)) return p;
+  if (const auto why = mesh::layout_problem(w, stator)) {
+    const int belts = w.n_poles * w.n_phases, common = std::gcd(n_slots, belts);
+    const int t = std::gcd(n_slots, w.pole_pairs());
+    return Problem{table ? "winding.sides" : "winding.phases",
+                   table ? *why
+                         : fmt::format("q = Q/(2p·m) = {}/({}·{}) = {}/{} slots per pole and phase: {}", n_slots,
+                                       w.n_poles, w.n_phases, n_slots / common, belts / common, *why),
+                   table ? "a balanced slot table"
+                         : fmt::format("Q/(m·t) a whole number, with t = gcd(Q, p) = {} (here {}/({}·{}))", t,
+                                       n_slots, w.n_phases, t)};
+  }
+  if (table) return std::nullopt;
+  return paths_problem(w, n_slots, integral);
 }
 
 std::optional<Problem> study_problem(const Study& study) {
@@ -193,7 +315,7 @@ std::optional<Problem> study_problem(const Study& study) {
 
 std::optional<Problem> case_problem(const Case& c) {
   if (auto p = geometry_problem(c.geometry)) return p;
-  if (auto p = winding_problem(c.winding, c.geometry.stator.n_slots)) return p;
+  if (auto p = winding_problem(c.winding, c.geometry.stator)) return p;
   return study_problem(c.study);
 }
 

@@ -27,8 +27,8 @@ struct Problem {
 /// Stator, slot and rotor dimensions [m]; the first problem found, or nothing.
 std::optional<Problem> geometry_problem(const mesh::Geometry& geometry);
 
-/// Integral-slot layout of `winding` in `n_slots` slots; the first problem found, or nothing.
-std::optional<Problem> winding_problem(const mesh::WindingSpec& winding, int n_slots);
+/// The layout of `winding` on `stator` (by rule or the user's slot table); the first problem, or nothing.
+std::optional<Problem> winding_problem(const mesh::WindingSpec& winding, const mesh::StatorGeometry& stator);
 
 std::optional<Problem> study_problem(const Study& study);
 

@@ -8,6 +8,7 @@
 #include <fmt/format.h>
 
 #include "app/case_json.hpp"
+#include "app/drive.hpp"
 #include "app/progress.hpp"
 #include "mesh/build.hpp"
 #include "mesh/winding.hpp"
@@ -58,9 +59,9 @@ void print_summary(std::ostream& out, const Case& c, const mesh::Winding& w, con
   const post::RotationMetrics& x = r.metrics;
   const auto k = mesh::winding_factors(w, 1)[0];
   out << fmt::format("{}\n", c.title);
-  out << fmt::format("  {} slots, {} poles, {} phases, q = {}, winding factor {:.4f} (distribution {:.4f} x pitch {:.4f})\n",
-                     c.geometry.stator.n_slots, c.winding.n_poles, c.winding.n_phases, w.slots_per_pole_per_phase(),
-                     k.total, k.distribution, k.pitch);
+  out << fmt::format("  {} {}, {} poles, {} phases, q = {:.4g}, winding factor {:.4f}\n", c.geometry.stator.n_slots,
+                     c.geometry.stator.kind == mesh::StatorKind::salient ? "salient poles" : "slots",
+                     c.winding.n_poles, c.winding.n_phases, w.slots_per_pole_per_phase(), k.from_layout);
   out << fmt::format("  air-gap B_r fundamental   {:.4f} T   amplitude ripple {:.4f} %\n", x.mean_fundamental,
                      100 * x.amplitude_ripple);
   out << fmt::format("  peak |B_r|                {:.4f} .. {:.4f} T   peak-field ripple {:.2f} %\n", x.min_peak,
@@ -81,7 +82,7 @@ void run_case(const Case& c, const RunOptions& options, std::ostream& out) {
   auto t = Clock::now();
   progress.stage("meshing");
   const mesh::Mesh m = mesh::build(c.geometry, mesh::slot_layers(c.winding), c.mesh);
-  const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator.n_slots);
+  const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator);
   record.seconds.push_back({"mesh", seconds_since(t)});
 
   progress.stage(fmt::format("solving {} phase fields", c.winding.n_phases));
@@ -92,9 +93,11 @@ void run_case(const Case& c, const RunOptions& options, std::ostream& out) {
   record.seconds.push_back({"factorize", fields.stats.factorize_seconds});
   record.seconds.push_back({"solve", fields.stats.solve_seconds});
 
+  DriveReport drive;
+  const solver::Supply supply = resolve_supply(c, m, w, fields, drive);
   t = Clock::now();
   progress.stage("post-processing");
-  const post::StudyResult r = post::phase_sweep(m, w, fields, c.supply, c.study);
+  const post::StudyResult r = post::phase_sweep(m, w, fields, supply, c.study);
   record.seconds.push_back({"post", seconds_since(t)});
 
   t = Clock::now();
@@ -116,6 +119,7 @@ void run_case(const Case& c, const RunOptions& options, std::ostream& out) {
 
   record.version = kVersion;
   record.inputs_json = case_to_json(c);
+  record.drive_json = drive_to_json(supply, c.winding.n_phases, drive);
   record.mesh = &m;
   record.winding = &w;
   record.study = &r;

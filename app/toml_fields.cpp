@@ -234,6 +234,20 @@ const toml::node& Fields::required(std::string_view key, std::string_view expect
   return *node;
 }
 
+const toml::array& Fields::array(std::string_view key, std::string_view expected) const {
+  const toml::node& node = required(key, expected);
+  const auto* a = node.as_array();
+  if (!a) fail(key, "found " + type_name(node), expected);
+  return *a;
+}
+
+void Fields::fail_at(const toml::node& node, std::string_view key, std::string_view index, std::string_view problem,
+                     std::string_view expected) const {
+  const int at = std::max<int>(1, static_cast<int>(node.source().begin.line));
+  app::fail(*doc_, at, fmt::format("{}{}[{}] = {}", table_prefix(name_), key, index, format_value(node)), problem,
+            expected);
+}
+
 double Fields::real(std::string_view key, const RealRange& range) const {
   const std::string expected = describe(range);
   const toml::node& node = required(key, expected);
@@ -296,6 +310,11 @@ std::size_t Fields::choice(std::string_view key, const std::vector<std::string>&
        guess.empty() ? "not one of the choices"
                      : fmt::format("not one of the choices (did you mean {}?)", quoted(guess)),
        expected);
+}
+
+std::size_t Fields::choice_or(std::string_view key, const std::vector<std::string>& choices,
+                              std::size_t fallback) const {
+  return has(key) ? choice(key, choices) : fallback;
 }
 
 void Fields::reject(std::string_view key, std::string_view problem, std::string_view expected) const {

@@ -87,8 +87,16 @@ class Fields {
 
   /// A required string that must be one of `choices`; returns its index in `choices`.
   std::size_t choice(std::string_view key, const std::vector<std::string>& choices) const;
+  std::size_t choice_or(std::string_view key, const std::vector<std::string>& choices, std::size_t fallback) const;
 
   bool has(std::string_view key) const;
+
+  /// A required array (its elements are read by the functions in toml_arrays.hpp).
+  const toml::array& array(std::string_view key, std::string_view expected) const;
+  /// Throws InputError at the line of `node`, an element of one of this table's arrays;
+  /// the subject reads "[table] key[index]".
+  [[noreturn]] void fail_at(const toml::node& node, std::string_view key, std::string_view index,
+                            std::string_view problem, std::string_view expected) const;
 
   /// Fails if `key` is present: used for keys that another setting makes meaningless.
   void reject(std::string_view key, std::string_view problem, std::string_view expected) const;

@@ -1,5 +1,8 @@
 #include "app/winding_report.hpp"
 
+#include <cmath>
+#include <numeric>
+
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
@@ -9,61 +12,108 @@
 namespace tf::app {
 namespace {
 
-constexpr int kMaxOrder = 13;
+constexpr int kMaxOrder = 13;  // electrical orders reported, as in the design brief
+
+const char* rule_name(mesh::LayoutRule r) {
+  switch (r) {
+    case mesh::LayoutRule::phase_belts: return "phase belts (integral slot)";
+    case mesh::LayoutRule::star_of_slots: return "star of slots";
+    case mesh::LayoutRule::pole_coils: return "one coil per salient pole, by the star of slots";
+    case mesh::LayoutRule::table: return "the case file's slot table";
+  }
+  return "";
+}
 
 std::string side_label(const mesh::CoilSide& s) { return (s.direction > 0 ? "+" : "-") + post::phase_name(s.phase); }
 
-void print_text(const Case& c, const mesh::Winding& w, std::ostream& out) {
-  const auto& spec = c.winding;
-  out << fmt::format("{} slots, {} poles, {} phases, {} layer{}, coil pitch {} slots (pole pitch {:g})\n",
-                     w.n_slots, spec.n_poles, spec.n_phases, spec.n_layers, spec.n_layers > 1 ? "s" : "",
-                     spec.coil_pitch, static_cast<double>(w.n_slots) / spec.n_poles);
-  out << fmt::format("q = {} slots per pole per phase; {:g} series turns per phase; {} parallel path{}\n\n",
-                     w.slots_per_pole_per_phase(), w.series_turns(), spec.parallel_paths,
+std::string q_text(const mesh::Winding& w) {
+  const int num = w.n_slots, den = w.spec.n_poles * w.spec.n_phases, g = std::gcd(num, den);
+  return den / g == 1 ? fmt::format("{}", num / g) : fmt::format("{}/{}", num / g, den / g);
+}
+
+void print_header(const mesh::Winding& w, std::ostream& out) {
+  const auto& spec = w.spec;
+  out << fmt::format("{} {}, {} poles, {} phases, {} layer{}", w.n_slots,
+                     w.rule == mesh::LayoutRule::pole_coils ? "salient poles" : "slots", spec.n_poles, spec.n_phases,
+                     spec.n_layers, spec.n_layers > 1 ? "s" : "");
+  if (w.rule != mesh::LayoutRule::table) out << fmt::format(", coil pitch {} slots", spec.coil_pitch);
+  out << fmt::format(" (pole pitch {:g})\n", static_cast<double>(w.n_slots) / spec.n_poles);
+  out << fmt::format("layout: {}; q = {} slots per pole per phase; periodicity t = gcd(Q, p) = {}\n",
+                     rule_name(w.rule), q_text(w), w.periodicity());
+  out << fmt::format("{:g} series turns per phase; {} parallel path{}\n\n", w.series_turns(), spec.parallel_paths,
                      spec.parallel_paths > 1 ? "s" : "");
+}
+
+void print_table(const mesh::Winding& w, std::ostream& out) {
   out << "slot";
-  for (int l = 1; l <= spec.n_layers; ++l) out << fmt::format("  layer {}", l);
+  for (int l = 1; l <= w.spec.n_layers; ++l) out << fmt::format("  layer {}", l);
   out << "   (+: positive phase current flows along +z, out of the page)\n";
   for (int s = 1; s <= w.n_slots; ++s) {
     out << fmt::format("{:>4}", s);
-    for (const auto& side : w.sides)
-      if (side.slot == s) out << fmt::format("  {:>7}", side_label(side));
+    for (int l = 1; l <= w.spec.n_layers; ++l) {
+      std::string label = "-";
+      for (const auto& side : w.sides)
+        if (side.slot == s && side.layer == l) label = side_label(side);
+      out << fmt::format("  {:>7}", label);
+    }
     out << '\n';
   }
-  out << "\norder  distribution   pitch     winding   (star of slots)\n";
-  for (const auto& f : mesh::winding_factors(w, kMaxOrder))
-    out << fmt::format("{:>5}  {:>12.5f}  {:>7.5f}  {:>8.5f}   {:>8.5f}\n", f.order, f.distribution, f.pitch, f.total,
-                       f.from_layout);
+}
+
+void print_factors(const mesh::Winding& w, std::ostream& out) {
+  const int p = w.spec.pole_pairs();
+  if (w.rule == mesh::LayoutRule::phase_belts) {
+    out << "\nelectrical order  distribution   pitch     winding   (star of slots)\n";
+    for (const auto& f : mesh::winding_factors(w, kMaxOrder))
+      out << fmt::format("{:>16}  {:>12.5f}  {:>7.5f}  {:>8.5f}   {:>8.5f}\n", f.order, f.distribution, f.pitch,
+                         f.total, f.from_layout);
+  }
+  out << "\nspace orders present (phase A, star of slots), sub-harmonics included:\n";
+  out << "mechanical order  electrical order  winding factor\n";
+  for (const auto& [n, k] : mesh::space_orders(w, kMaxOrder * p))
+    out << fmt::format("{:>16}  {:>16g}  {:>14.5f}{}\n", n, static_cast<double>(n) / p, k,
+                       n == p ? "   fundamental" : (n < p ? "   sub-harmonic" : ""));
 }
 
 void print_json(const mesh::Winding& w, std::ostream& out) {
-  nlohmann::json sides = nlohmann::json::array(), factors = nlohmann::json::array();
+  nlohmann::json sides = nlohmann::json::array(), factors = nlohmann::json::array(), orders = nlohmann::json::array();
   for (const auto& s : w.sides)
     sides.push_back({{"slot", s.slot}, {"layer", s.layer}, {"phase", post::phase_name(s.phase)},
                      {"direction", s.direction > 0 ? "+" : "-"}, {"turns", s.turns}});
-  for (const auto& f : mesh::winding_factors(w, kMaxOrder))
-    factors.push_back({{"electrical_order", f.order}, {"distribution", f.distribution}, {"pitch", f.pitch},
-                       {"total", f.total}, {"from_layout", f.from_layout}});
+  for (const auto& f : mesh::winding_factors(w, kMaxOrder)) {
+    nlohmann::json row = {{"electrical_order", f.order}, {"from_layout", f.from_layout}};
+    if (!std::isnan(f.total)) {
+      row["distribution"] = f.distribution;
+      row["pitch"] = f.pitch;
+      row["total"] = f.total;
+    }
+    factors.push_back(row);
+  }
+  for (const auto& [n, k] : mesh::space_orders(w, kMaxOrder * w.spec.pole_pairs()))
+    orders.push_back({{"mechanical_order", n}, {"winding_factor", k}});
   const nlohmann::json j = {{"slots", w.n_slots},
                             {"poles", w.spec.n_poles},
                             {"phases", w.spec.n_phases},
                             {"layers", w.spec.n_layers},
                             {"coil_pitch_slots", w.spec.coil_pitch},
-                            {"slots_per_pole_per_phase", w.slots_per_pole_per_phase()},
+                            {"layout", rule_name(w.rule)},
+                            {"slots_per_pole_per_phase", q_text(w)},
+                            {"periodicity", w.periodicity()},
                             {"series_turns_per_phase", w.series_turns()},
                             {"coil_sides", sides},
-                            {"winding_factors", factors}};
+                            {"winding_factors", factors},
+                            {"space_orders", orders}};
   out << j.dump(2) << '\n';
 }
 
 }  // namespace
 
 void print_winding(const Case& c, bool as_json, std::ostream& out) {
-  const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator.n_slots);
-  if (as_json)
-    print_json(w, out);
-  else
-    print_text(c, w, out);
+  const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator);
+  if (as_json) return print_json(w, out);
+  print_header(w, out);
+  print_table(w, out);
+  print_factors(w, out);
 }
 
 }  // namespace tf::app

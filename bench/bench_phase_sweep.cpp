@@ -39,7 +39,7 @@ int main(int argc, char** argv) {
   std::vector<std::pair<std::string, double>> stage;
   auto t = Clock::now();
   const mesh::Mesh m = mesh::build(c.geometry, mesh::slot_layers(c.winding), c.mesh);
-  const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator.n_slots);
+  const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator);
   stage.push_back({"mesh", since(t)});
 
   const solver::PhaseFields f = solver::solve_phase_fields(m, w, c.materials);

@@ -29,8 +29,12 @@ int rotor_sectors(int n_slots) {
 ElementSizes element_sizes(const Geometry& g, const MeshControls& c) {
   const StatorGeometry& s = g.stator;
   const double across_gap = 4.0 * std::max(1.0, c.fineness);
-  const double slot_pitch = 2 * kPi * s.bore_radius / s.n_slots;
-  const double largest = std::min({slot_pitch / 3.0, s.slot.width / 2.0, (s.outer_radius - s.bore_radius) / 6.0}) / c.fineness;
+  // Far from the gap, elements still resolve the narrowest part: a slot, or a pole's body and coil
+  // sides. The pitch is the slot pitch, or the pole pitch of a salient-pole stator, at the bore.
+  const double pitch = 2 * kPi * s.bore_radius / s.n_slots;
+  const double narrowest =
+      s.kind == StatorKind::salient ? std::min(s.poles.body_width, s.poles.coil_width) : s.slot.width;
+  const double largest = std::min({pitch / 3.0, narrowest / 2.0, (s.outer_radius - s.bore_radius) / 6.0}) / c.fineness;
   return {g.gap_length() / across_gap, largest, 0.25};
 }
 
@@ -44,7 +48,9 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
     return std::min(h.largest, h.gap + h.grading * away);
   };
   const int n_slots = g.stator.n_slots;
-  const int per_slot = std::max(2, static_cast<int>(std::ceil(2 * kPi * r_slide / n_slots / h.gap)));
+  int per_slot = std::max(2, static_cast<int>(std::ceil(2 * kPi * r_slide / n_slots / h.gap)));
+  // Two slots (poles) make sectors of half a turn, whose sliding arcs are drawn in two halves.
+  if (n_slots == 2) per_slot += per_slot % 2;
   const int n_sliding = n_slots * per_slot;
   const int n_rotor = rotor_sectors(n_slots);
 

@@ -19,7 +19,7 @@ enum class RegionKind {
   rotor_iron,
   shaft,
   coil,      ///< one layer of one slot: a coil side
-  slot_air,  ///< slot opening and wedge space, no current
+  slot_air,  ///< slot opening and wedge space, or the air between salient poles; no current
   gap,       ///< air gap, stator or rotor side of the sliding circle
   bore_air,  ///< air filling the bore when there is no rotor
 };
@@ -27,8 +27,8 @@ enum class RegionKind {
 struct Region {
   std::string name;  ///< readable and unique, e.g. "slot_07_layer_2"
   RegionKind kind = RegionKind::stator_iron;
-  int slot = 0;   ///< 1-based slot number for coil and slot_air regions, else 0
-  int layer = 0;  ///< 1-based layer (1 nearest the gap) for coil regions, else 0
+  int slot = 0;   ///< 1-based slot (salient stator: pole) number for coil sides and slot openings, else 0
+  int layer = 0;  ///< 1-based layer for coil regions (1 nearest the gap, or counter-clockwise side by side), else 0
 };
 
 /// The circle in the middle of the gap where the stator-side and rotor-side meshes meet.

@@ -51,10 +51,13 @@ void join_cuts(const Copies& c, NodeSets& sets, double tolerance) {
   }
 }
 
-std::string slot_region_name(int slot, int n_slots, const PieceKind& kind) {
+/// Names of per-slot regions: "slot_07_layer_2", "slot_07_opening", or "pole_03_coil_1" on a
+/// salient-pole stator. Numbers are padded to the width of the largest, so names sort in order.
+std::string slot_region_name(StatorKind stator, int slot, int n_slots, const PieceKind& kind) {
   const int digits = static_cast<int>(std::to_string(n_slots).size());
   std::string number = std::to_string(slot);
   number.insert(0, std::max(0, digits - static_cast<int>(number.size())), '0');
+  if (stator == StatorKind::salient) return "pole_" + number + "_coil_" + std::to_string(kind.layer);
   if (kind.kind == RegionKind::coil) return "slot_" + number + "_layer_" + std::to_string(kind.layer);
   return "slot_" + number + "_opening";
 }
@@ -66,17 +69,24 @@ std::string region_name(const PieceKind& kind, bool rotor_side) {
     case RegionKind::shaft: return "shaft";
     case RegionKind::bore_air: return "bore_air";
     case RegionKind::gap: return rotor_side ? "gap_rotor_side" : "gap_stator_side";
+    // Only salient-pole stators have shared slot air: the air between two poles belongs to both.
+    case RegionKind::slot_air: return "interpolar_air";
     default: return "?";
   }
 }
 
-/// Builds the region table as triangles are added; slot regions are numbered per copy.
+/// Builds the region table as triangles are added. Coil sides are numbered per copy (slot or
+/// pole k, as the winding finds them); so are slot openings, while the air between salient
+/// poles, which no single pole owns, is one region.
 struct RegionTable {
   std::vector<Region>& regions;
+  StatorKind stator;
   std::map<std::string, int> by_name;
   int index(const PieceKind& kind, int slot, int n_slots, bool rotor_side) {
-    const bool per_slot = kind.kind == RegionKind::coil || kind.kind == RegionKind::slot_air;
-    const std::string name = per_slot ? slot_region_name(slot, n_slots, kind) : region_name(kind, rotor_side);
+    const bool per_slot = kind.kind == RegionKind::coil ||
+                          (kind.kind == RegionKind::slot_air && stator == StatorKind::slotted);
+    const std::string name =
+        per_slot ? slot_region_name(stator, slot, n_slots, kind) : region_name(kind, rotor_side);
     const auto [it, added] = by_name.emplace(name, static_cast<int>(regions.size()));
     if (added) regions.push_back({name, kind.kind, per_slot ? slot : 0, kind.kind == RegionKind::coil ? kind.layer : 0});
     return it->second;
@@ -137,7 +147,7 @@ Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies,
                     n_rotor_copies * static_cast<int>(rotor.triangles.rows());
   m.triangles.resize(n_tri, 3);
   m.triangle_region.resize(n_tri);
-  RegionTable table{m.regions, {}};
+  RegionTable table{m.regions, g.stator.kind, {}};
   int t = 0;
   for (const Copies* c : {&sc, &rc})
     for (int k = 0; k < c->n_copies; ++k)

@@ -116,8 +116,12 @@ SectorMesh mesh_pieces(const std::vector<Piece>& pieces, const SectorFrame& f, i
   gmsh::model::occ::synchronize();
   Boundaries b = classify_curves(f);
   make_cuts_periodic(b, f.span);
-  if (b.sliding.size() != 1) throw MeshError("the sliding arc of a sector is not one curve");
-  gmsh::model::mesh::setTransfiniteCurve(b.sliding[0], n_sliding_segments + 1);
+  // The sliding arc is one curve, or two equal halves when the sector spans half a turn.
+  const int n_arcs = static_cast<int>(b.sliding.size());
+  if (n_arcs < 1 || n_arcs > 2 || n_sliding_segments % n_arcs != 0)
+    throw MeshError("the sliding arc of a sector is " + std::to_string(n_arcs) + " curves for " +
+                    std::to_string(n_sliding_segments) + " segments");
+  for (int arc : b.sliding) gmsh::model::mesh::setTransfiniteCurve(arc, n_sliding_segments / n_arcs + 1);
   gmsh::model::mesh::setSizeCallback([&size](int, int, double x, double y, double) { return size(x, y); });
   gmsh::model::mesh::generate(2);
   gmsh::model::mesh::removeSizeCallback();
@@ -165,7 +169,8 @@ SectorMesh with_context(const char* what, Build build) {
 }  // namespace
 
 SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n_sliding_segments, const SizeRule& size) {
-  return with_context("stator slot pitch", [&] {
+  const bool salient = g.stator.kind == StatorKind::salient;
+  return with_context(salient ? "stator pole pitch" : "stator slot pitch", [&] {
     const double a = std::numbers::pi / g.stator.n_slots;
     const SectorFrame f{-a, 2 * a, g.mid_gap_radius(), g.stator.outer_radius, 1e-6 * g.stator.outer_radius};
     return mesh_pieces(build_stator_pieces(g, layers), f, n_sliding_segments, size);

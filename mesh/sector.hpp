@@ -36,8 +36,10 @@ struct SectorMesh {
 /// Element size [m] at a point (x, y) [m].
 using SizeRule = std::function<double(double x, double y)>;
 
-/// The stator slot pitch centred on slot 1 (on the +x axis), from the sliding circle to the
-/// outer surface, with n_sliding_segments equal segments on the sliding arc.
+/// The stator slot pitch centred on slot 1 (on the +x axis), or the pole pitch centred on pole 1
+/// of a salient-pole stator, from the sliding circle to the outer surface, with n_sliding_segments
+/// equal segments on the sliding arc. Sectors of half a turn (two poles, two rotor sectors) need
+/// an even number of segments: their arcs are drawn in two halves.
 SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n_sliding_segments, const SizeRule& size);
 
 /// A rotor sector of span 2*pi/n_sectors starting at start_angle, from the centre to the sliding circle.

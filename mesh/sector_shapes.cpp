@@ -8,6 +8,7 @@
 
 #include <gmsh.h>
 
+#include "mesh/salient_shapes.hpp"
 #include "mesh/sector_shapes.hpp"
 
 namespace tf::mesh::detail {
@@ -36,18 +37,22 @@ bool contains(const gmsh::vectorpair& list, int tag) {
   return false;
 }
 
-struct LabelledShape {
-  int tag;
-  PieceKind kind;
-};
+/// Circle arc of radius r about `centre` between two points at the given angles. OpenCASCADE
+/// draws an arc through start, centre and end, which is ambiguous for half a turn (a two-pole
+/// stator's sector), so arcs that long are drawn in two equal halves.
+std::vector<int> add_arc(int centre, double r, int from, double a_from, int to, double a_to) {
+  if (std::abs(a_to - a_from) < 0.9 * std::numbers::pi) return {occ::addCircleArc(from, centre, to)};
+  const int middle = add_polar_point(r, 0.5 * (a_from + a_to));
+  return {occ::addCircleArc(from, centre, middle), occ::addCircleArc(middle, centre, to)};
+}
 
 /// The slot's pieces, from the gap upwards. The lowest piece reaches below the bore so that it
 /// cuts the bore arc cleanly; what lies below the bore is discarded after the fragment.
-std::vector<LabelledShape> slot_shapes(const StatorGeometry& s, const SlotLayers& layers) {
+std::vector<Piece> slot_shapes(const StatorGeometry& s, const SlotLayers& layers) {
   const double r_b = s.bore_radius;
   const double x_low = 0.5 * r_b;
   const double x_bottom = r_b + s.slot.depth;
-  std::vector<LabelledShape> shapes;
+  std::vector<Piece> shapes;
   double coil_start = x_low;
   if (s.slot.shape == SlotShape::semi_closed) {
     const double tip_top = r_b + s.slot.tip_height;
@@ -85,44 +90,53 @@ int add_annular_sector(double r_in, double r_out, double a0, double a1) {
   const int out0 = add_polar_point(r_out, a0);
   const int out1 = add_polar_point(r_out, a1);
   std::vector<int> loop;
+  const auto append = [&loop](const std::vector<int>& arcs) { loop.insert(loop.end(), arcs.begin(), arcs.end()); };
   if (r_in > 0.0) {
     const int in0 = add_polar_point(r_in, a0);
     const int in1 = add_polar_point(r_in, a1);
-    loop = {occ::addLine(in0, out0), occ::addCircleArc(out0, centre, out1), occ::addLine(out1, in1),
-            occ::addCircleArc(in1, centre, in0)};
+    loop.push_back(occ::addLine(in0, out0));
+    append(add_arc(centre, r_out, out0, a0, out1, a1));
+    loop.push_back(occ::addLine(out1, in1));
+    append(add_arc(centre, r_in, in1, a1, in0, a0));
     occ::remove({{0, centre}});  // only the arcs needed it
   } else {
-    loop = {occ::addLine(centre, out0), occ::addCircleArc(out0, centre, out1), occ::addLine(out1, centre)};
+    loop.push_back(occ::addLine(centre, out0));
+    append(add_arc(centre, r_out, out0, a0, out1, a1));
+    loop.push_back(occ::addLine(out1, centre));
   }
   return occ::addPlaneSurface({occ::addCurveLoop(loop)});
 }
 
-std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& layers) {
-  const StatorGeometry& s = g.stator;
-  const double a = std::numbers::pi / s.n_slots;
-  const int stator = add_annular_sector(s.bore_radius, s.outer_radius, -a, a);
-  const std::vector<LabelledShape> slot = slot_shapes(s, layers);
-
+std::vector<Piece> fragment_domain(int domain, const std::vector<Piece>& shapes, PieceKind rest) {
   gmsh::vectorpair tools, out;
-  for (const auto& shape : slot) tools.push_back({2, shape.tag});
+  for (const auto& shape : shapes) tools.push_back({2, shape.tag});
   std::vector<gmsh::vectorpair> children;
-  occ::fragment({{2, stator}}, tools, out, children);
+  occ::fragment({{2, domain}}, tools, out, children);
 
   std::vector<Piece> pieces;
   gmsh::vectorpair outside;
   for (const auto& [dim, tag] : out) {
     if (dim != 2) continue;
-    if (!contains(children[0], tag)) {  // part of a slot shape below the bore
+    if (!contains(children[0], tag)) {  // part of a shape outside the domain
       outside.push_back({2, tag});
       continue;
     }
-    PieceKind kind{RegionKind::stator_iron, 0};
-    for (std::size_t i = 0; i < slot.size(); ++i)
-      if (contains(children[i + 1], tag)) kind = slot[i].kind;
+    PieceKind kind = rest;
+    for (std::size_t i = 0; i < shapes.size(); ++i)
+      if (contains(children[i + 1], tag)) kind = shapes[i].kind;
     pieces.push_back({tag, kind});
   }
   occ::remove(outside, true);
+  return pieces;
+}
 
+std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& layers) {
+  if (g.stator.kind == StatorKind::salient) return build_salient_pieces(g);
+  const StatorGeometry& s = g.stator;
+  const double a = std::numbers::pi / s.n_slots;
+  const int stator = add_annular_sector(s.bore_radius, s.outer_radius, -a, a);
+  // What is not slot is iron; the slot shapes' parts below the bore are dropped.
+  const std::vector<Piece> pieces = fragment_domain(stator, slot_shapes(s, layers), {RegionKind::stator_iron, 0});
   const int gap = add_annular_sector(g.mid_gap_radius(), s.bore_radius, -a, a);
   return fragment_pieces(pieces, {gap, {RegionKind::gap, 0}});
 }

@@ -1,5 +1,6 @@
 #pragma once
-// OpenCASCADE shapes of one stator slot pitch and one rotor sector (inside an open Gmsh session).
+// OpenCASCADE shapes of one stator slot (or pole) pitch and one rotor sector (inside an open Gmsh
+// session).
 
 #include <vector>
 
@@ -14,10 +15,17 @@ struct Piece {
   PieceKind kind;
 };
 
-/// Plane surface between radii r_in (0 for a pie slice) and r_out, angles a0 < a1 [rad], a1 - a0 < pi.
+/// Plane surface between radii r_in (0 for a pie slice) and r_out, angles a0 < a1 [rad], a1 - a0 <= pi.
+/// Arcs of 0.9*pi or more are made of two equal halves.
 int add_annular_sector(double r_in, double r_out, double a0, double a1);
 
-/// The slot pitch centred on the +x axis, from the sliding circle to the outer radius.
+/// Fragments the surface `domain` with `shapes` and labels its pieces: a piece inside shape i gets
+/// shapes[i].kind (the last such shape wins), any other piece `rest`. Parts of the shapes outside
+/// the domain are removed from the model.
+std::vector<Piece> fragment_domain(int domain, const std::vector<Piece>& shapes, PieceKind rest);
+
+/// The slot pitch (or, for a salient-pole stator, the pole pitch) centred on the +x axis, from the
+/// sliding circle to the outer radius. `layers` applies to slotted stators only.
 std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& layers);
 
 /// The rotor sector between angles a0 and a1, from the centre to the sliding circle.

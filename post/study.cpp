@@ -17,12 +17,16 @@ StudyResult phase_sweep(const mesh::Mesh& m, const mesh::Winding& w, const solve
 
   StudyResult out;
   out.sample_angles = ops.angles;
+  out.unit_fundamentals.resize(w.spec.n_phases);
+  for (int k = 0; k < w.spec.n_phases; ++k) out.unit_fundamentals[k] = unit_harmonics(p, k);
   std::vector<std::complex<double>> fundamental;
   std::vector<double> peak, distortion;
-  for (int k = 0; k < plan.n_steps; ++k) {
+  const auto currents = solver::step_currents(supply, w.spec.n_phases, plan.n_steps);
+  const int n_steps = static_cast<int>(currents.size());
+  for (int k = 0; k < n_steps; ++k) {
     StepResult s;
-    s.electrical_angle = 2 * std::numbers::pi * k / plan.n_steps;
-    s.currents = solver::phase_currents(supply, w.spec.n_phases, s.electrical_angle);
+    s.electrical_angle = 2 * std::numbers::pi * k / n_steps;
+    s.currents = currents[k];
     const Eigen::Map<const Eigen::VectorXd> i(s.currents.data(), static_cast<Eigen::Index>(s.currents.size()));
     s.br = unit_br * i;
     s.bt = unit_bt * i;
@@ -48,6 +52,19 @@ std::vector<int> field_file_steps(int n_steps, int n_files) {
     if (steps.empty() || steps.back() != k) steps.push_back(k);
   }
   return steps;
+}
+
+}  // namespace tf::post
+
+namespace tf::post {
+
+std::vector<std::complex<double>> unit_fundamentals(const mesh::Mesh& m, const solver::PhaseFields& fields,
+                                                    int pole_pairs) {
+  const GapOperators ops = gap_operators(m, 720, pole_pairs);
+  const Eigen::MatrixXcd c = gap_harmonics(ops, fields.potential);
+  std::vector<std::complex<double>> out;
+  for (Eigen::Index k = 0; k < c.cols(); ++k) out.push_back(c(pole_pairs, k));
+  return out;
 }
 
 }  // namespace tf::post

@@ -24,7 +24,7 @@ struct StudyPlan {
 };
 
 struct StepResult {
-  double electrical_angle = 0.0;  ///< ωt [rad]
+  double electrical_angle = 0.0;  ///< ωt [rad]; for stepped DC, 360°·k/K for state k
   std::vector<double> currents;   ///< phase currents [A]
   Eigen::VectorXd br, bt;         ///< B_r, B_θ [T] at the gap sample angles
   Eigen::VectorXcd harmonics;     ///< c_n [T], mechanical order n = 0 .. p * max_harmonic
@@ -38,6 +38,8 @@ struct StudyResult {
   std::vector<double> sample_angles;  ///< [rad]
   std::vector<StepResult> steps;
   RotationMetrics metrics;
+  /// c_p [T/A] of 1 A in each phase alone: the field any set of currents makes is their sum.
+  std::vector<std::complex<double>> unit_fundamentals;
 };
 
 StudyResult phase_sweep(const mesh::Mesh& m, const mesh::Winding& w, const solver::PhaseFields& fields,
@@ -45,5 +47,13 @@ StudyResult phase_sweep(const mesh::Mesh& m, const mesh::Winding& w, const solve
 
 /// Steps [0, K) that get a field file: n evenly spaced, always including step 0.
 std::vector<int> field_file_steps(int n_steps, int n_files);
+
+}  // namespace tf::post
+
+namespace tf::post {
+
+/// c_p [T/A] on the mid-gap circle of 1 A in each phase alone (for circuits solved before the study).
+std::vector<std::complex<double>> unit_fundamentals(const mesh::Mesh& m, const solver::PhaseFields& fields,
+                                                    int pole_pairs);
 
 }  // namespace tf::post

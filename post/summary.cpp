@@ -26,6 +26,7 @@ json field_results(const StudyResult& s, int pole_pairs) {
       {"forward_wave_T", r.forward},
       {"backward_wave_T", r.backward},
       {"backward_forward_ratio", r.backward_forward_ratio},
+      {"rotation", r.forward >= r.backward ? "counter-clockwise" : "clockwise"},
       {"harmonic_distortion", r.mean_distortion},
       {"harmonic_method",
        "B_r harmonics from the Fourier series of nodal A on the mid-gap circle, B_r,n = n A_n / r"},
@@ -35,15 +36,19 @@ json field_results(const StudyResult& s, int pole_pairs) {
 }
 
 json winding_summary(const mesh::Winding& w) {
-  const auto factors = mesh::winding_factors(w, 1);
-  return {
+  const auto f = mesh::winding_factors(w, 1)[0];
+  json j = {
       {"slots_per_pole_per_phase", w.slots_per_pole_per_phase()},
+      {"periodicity", w.periodicity()},
       {"series_turns_per_phase", w.series_turns()},
-      {"distribution_factor", factors[0].distribution},
-      {"pitch_factor", factors[0].pitch},
-      {"winding_factor", factors[0].total},
+      {"winding_factor", f.from_layout},
       {"phase_A_axis_deg", w.phase_a_axis / w.spec.pole_pairs() * kDeg},
   };
+  if (!std::isnan(f.total)) {  // closed forms exist for integral-slot windings only
+    j["distribution_factor"] = f.distribution;
+    j["pitch_factor"] = f.pitch;
+  }
+  return j;
 }
 
 }  // namespace
@@ -60,6 +65,7 @@ void write_summary(const std::filesystem::path& path, const RunRecord& r) {
                {"sliding_circle_nodes", r.mesh->sliding.stator_nodes.size()},
                {"sliding_circle_radius_m", r.mesh->sliding.radius}};
   j["winding"] = winding_summary(*r.winding);
+  j["drive"] = json::parse(r.drive_json);
   j["field"] = field_results(*r.study, r.winding->spec.pole_pairs());
   j["solver"] = {{"unknowns", r.stats.n_dofs},
                  {"matrix_nonzeros", r.stats.n_nonzeros},

@@ -23,6 +23,7 @@ inline constexpr const char* kSafetyCaution =
 struct RunRecord {
   std::string version;
   std::string inputs_json;  ///< the case as read, echoed as a JSON object
+  std::string drive_json;   ///< the currents as used and the inductances, a JSON object
   const mesh::Mesh* mesh = nullptr;
   const mesh::Winding* winding = nullptr;
   const StudyResult* study = nullptr;

@@ -5,6 +5,7 @@
 
 #include <filesystem>
 #include <fstream>
+#include <numbers>
 #include <set>
 #include <string>
 #include <vector>
@@ -95,8 +96,8 @@ const std::vector<BadFile> bad_files = {
     {"bad_odd_poles.toml", 35, {"[winding] poles = 5", "expected an even number"}},
     {"bad_fractional_q.toml",
      34,
-     {"[winding] phases = 2", "36/(4·2) = 9/2 slots per pole and phase", "2p·m = 8 to divide [stator] slots = 36",
-      "integral-slot windings"}},
+     {"[winding] phases = 5", "36/(4·5) = 9/5 slots per pole and phase", "no balanced layout",
+      "t = gcd(Q, p) = 2 (here 36/(5·2))"}},
     {"bad_pitch_too_long.toml",
      37,
      {"[winding] coil_pitch = 10", "longer than the pole pitch of 9 slots", "expected a coil pitch from 1 to 9"}},
@@ -107,6 +108,46 @@ const std::vector<BadFile> bad_files = {
      39,
      {"[winding] parallel_paths = 3", "cannot share the 4 coil groups", "expected a divisor of 4: 1, 2, 4"}},
     {"bad_field_files.toml", 47, {"[study] field_files = 80", "more field files than steps (72)", "expected at most 72"}},
+    {"bad_stator_kind_value.toml",
+     10,
+     {"[stator] kind = \"salliant\"", "did you mean \"salient\"?", "expected \"slotted\" or \"salient\""}},
+    {"bad_salient_with_slots.toml",
+     13,
+     {"[stator] slots = 4", "not used by salient-pole stators", "counted by [stator.poles] count"}},
+    {"bad_salient_with_slot_table.toml", 14, {"[stator.slot]: not used by salient-pole stators", "kind = \"slotted\""}},
+    {"bad_poles_on_slotted.toml", 14, {"[stator.poles]: not used by slotted stators", "kind = \"salient\""}},
+    {"bad_salient_missing_poles.toml", 9, {"missing table [stator.poles]", "count, shoe_arc_deg, shoe_height"}},
+    {"bad_salient_odd_count.toml", 15, {"[stator.poles] count = 5", "an odd number", "expected an even number"}},
+    {"bad_salient_shoe_arc_range.toml",
+     16,
+     {"[stator.poles] shoe_arc_deg = 90.0", "out of range", "expected a number in degrees, > 0 and < 90"}},
+    {"bad_salient_shoes_touch.toml",
+     16,
+     {"[stator.poles] shoe_arc_deg = 89.5", "shoes of neighbouring poles are 0.26 mm apart at the bore",
+      "minimum 0.50 mm", "expected a shoe arc at most 89.05 degrees"}},
+    {"bad_salient_body_too_wide.toml",
+     18,
+     {"[stator.poles] body_width = 0.0325", "shoe reaches only 0.25 mm past the body on each side",
+      "33.00 mm across at r = 33.00 mm", "expected a body width at most 32.00 mm"}},
+    {"bad_salient_thin_yoke.toml",
+     19,
+     {"[stator.poles] body_height = 0.0265", "reach r = 59.50 mm", "yoke of 0.50 mm", "minimum 1.00 mm",
+      "expected shoe_height + body_height at most 29.00 mm"}},
+    {"bad_salient_coil_too_long.toml",
+     21,
+     {"[stator.poles] coil_height = 0.02", "longer than the pole body (body_height = 18.00 mm)",
+      "expected a coil height at most 18.00 mm"}},
+    {"bad_salient_coils_touch.toml",
+     20,
+     {"[stator.poles] coil_width = 0.025", "coil sides of neighbouring poles are 0.35 mm apart",
+      "minimum 0.50 mm", "expected a coil width at most 24.90 mm"}},
+    {"bad_salient_coil_reaches_yoke.toml",
+     21,
+     {"[stator.poles] coil_height = 0.017", "reach r = 51.48 mm, into the yoke (from r = 51.00 mm)",
+      "expected a coil height at most 15.97 mm"}},
+    {"bad_salient_rotor_touches.toml",
+     25,
+     {"[rotor] outer_radius = 0.03", "the rotor touches or overlaps the pole faces (R_b = 30.00 mm)"}},
     {"bad_syntax.toml", 15, {"not valid TOML"}},
 };
 
@@ -180,6 +221,27 @@ TEST_CASE("the 36-slot open-slot case reads its own study and mesh settings") {
   CHECK(c.study.n_gap_points == 1440);
   CHECK(c.study.max_harmonic == 31);
   CHECK(c.mesh.fineness == 1.5);
+}
+
+TEST_CASE("the salient-pole case reads its poles in SI units, the pole count standing for the slots") {
+  const auto c = read_case(source_dir + "/cases/salient4_two_phase.toml");
+  const auto& s = c.geometry.stator;
+  CHECK(s.kind == tf::mesh::StatorKind::salient);
+  CHECK(s.bore_radius == 0.030);
+  CHECK(s.outer_radius == 0.060);
+  CHECK(s.n_slots == 4);
+  CHECK(s.poles.shoe_arc == doctest::Approx(std::numbers::pi / 3).epsilon(1e-15));  // 60°
+  CHECK(s.poles.shoe_height == 0.003);
+  CHECK(s.poles.body_width == 0.014);
+  CHECK(s.poles.body_height == 0.018);
+  CHECK(s.poles.coil_width == 0.008);
+  CHECK(s.poles.coil_height == 0.014);
+  CHECK(s.slot.width == 0.0);  // no slot is read for a salient-pole stator
+  CHECK(c.winding.n_poles == 2);
+  CHECK(c.winding.coil_pitch == 1);
+  // A stator without `kind` is slotted.
+  CHECK(read_case(source_dir + "/cases/stator36_three_phase.toml").geometry.stator.kind ==
+        tf::mesh::StatorKind::slotted);
 }
 
 TEST_CASE("every bad case file is refused at the right line, naming key, problem and expectation") {

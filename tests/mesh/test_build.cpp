@@ -2,29 +2,18 @@
 
 #include <doctest/doctest.h>
 
-#include <algorithm>
-#include <cmath>
-#include <numbers>
-#include <set>
-
 #include "mesh/build.hpp"
+#include "support/mesh_checks.hpp"
 #include "support/sample_geometry.hpp"
 
 using namespace tf;
 
 namespace {
 
-constexpr double kPi = std::numbers::pi;
-
 void check_mesh(const mesh::Geometry& g, int n_layers, const mesh::Mesh& m) {
   const int Q = g.stator.n_slots;
   const auto area = mesh::region_areas(m);
-  // Every triangle is counter-clockwise and belongs to a region.
-  for (int t = 0; t < m.n_triangles(); ++t) REQUIRE(mesh::triangle_area(m, t) > 0.0);
-  // The pieces fill the disc of the outer radius (chords cut the arcs by ~(h/R)^2/6).
-  double total = 0.0;
-  for (double a : area) total += a;
-  CHECK(total == doctest::Approx(kPi * std::pow(g.stator.outer_radius, 2)).epsilon(2e-4));
+  testing::check_fills_disc(g, m);
   // Every slot has each layer, all with the same area: the copies are identical.
   for (int l = 1; l <= n_layers; ++l) {
     const int first = mesh::find_region(m, mesh::RegionKind::coil, 1, l);
@@ -44,58 +33,15 @@ void check_mesh(const mesh::Geometry& g, int n_layers, const mesh::Mesh& m) {
   CHECK(coil_area == doctest::Approx(sl.width * coil_height).epsilon(sl.shape == mesh::SlotShape::open ? 2e-3 : 1e-9));
 }
 
-void check_sliding_circle(const mesh::Geometry& g, const mesh::Mesh& m) {
-  const auto& s = m.sliding;
-  REQUIRE(s.stator_nodes.size() == s.rotor_nodes.size());
-  const int n = static_cast<int>(s.stator_nodes.size());
-  CHECK(n % g.stator.n_slots == 0);
-  std::set<int> distinct(s.stator_nodes.begin(), s.stator_nodes.end());
-  distinct.insert(s.rotor_nodes.begin(), s.rotor_nodes.end());
-  CHECK(distinct.size() == static_cast<std::size_t>(2 * n));  // two sides, no shared node
-  for (int i = 0; i < n; ++i) {
-    const double a = s.start_angle + 2 * kPi * i / n;
-    for (int node : {s.stator_nodes[i], s.rotor_nodes[i]}) {
-      CHECK(m.nodes(node, 0) == doctest::Approx(s.radius * std::cos(a)).epsilon(1e-9).scale(s.radius));
-      CHECK(m.nodes(node, 1) == doctest::Approx(s.radius * std::sin(a)).epsilon(1e-9).scale(s.radius));
-    }
-  }
-}
-
-/// At least three elements across the gap: no gap triangle spans more than a third of it radially.
-void check_gap_layers(const mesh::Geometry& g, const mesh::Mesh& m) {
-  double widest = 0.0;
-  for (int t = 0; t < m.n_triangles(); ++t) {
-    if (m.regions[m.triangle_region(t)].kind != mesh::RegionKind::gap) continue;
-    double lo = 1e9, hi = 0.0;
-    for (int i = 0; i < 3; ++i) {
-      const double r = m.nodes.row(m.triangles(t, i)).norm();
-      lo = std::min(lo, r);
-      hi = std::max(hi, r);
-    }
-    widest = std::max(widest, hi - lo);
-  }
-  CHECK(widest <= g.gap_length() / 3 * (1 + 1e-9));
-}
-
-/// No two nodes at one place, except the two sides of the sliding circle.
-void check_merged(const mesh::Mesh& m) {
-  std::vector<std::pair<long long, long long>> keys;
-  const double grid = 1e-9;
-  for (int i = 0; i < m.n_nodes(); ++i) keys.push_back({std::llround(m.nodes(i, 0) / grid), std::llround(m.nodes(i, 1) / grid)});
-  std::sort(keys.begin(), keys.end());
-  const auto duplicates = keys.size() - std::set(keys.begin(), keys.end()).size();
-  CHECK(duplicates == m.sliding.stator_nodes.size());
-}
-
 }  // namespace
 
 TEST_CASE("open-slot stator, two layers: regions, identical slots, sliding circle, gap layers") {
   const auto g = testing::open_slot_stator();
   const mesh::Mesh m = mesh::build(g, {2}, {0.5});
   check_mesh(g, 2, m);
-  check_sliding_circle(g, m);
-  check_gap_layers(g, m);
-  check_merged(m);
+  testing::check_sliding_circle(g, m);
+  testing::check_gap_layers(g, m);
+  testing::check_merged(m);
   CHECK(m.outer_nodes.size() > static_cast<std::size_t>(g.stator.n_slots));
   for (int node : m.outer_nodes) CHECK(m.nodes.row(node).norm() == doctest::Approx(g.stator.outer_radius).epsilon(1e-9));
 }
@@ -104,8 +50,8 @@ TEST_CASE("semi-closed stator, one layer, and a bore with no rotor") {
   auto g = testing::semi_closed_stator();
   const mesh::Mesh m = mesh::build(g, {1}, {0.5});
   check_mesh(g, 1, m);
-  check_sliding_circle(g, m);
-  check_gap_layers(g, m);
+  testing::check_sliding_circle(g, m);
+  testing::check_gap_layers(g, m);
   CHECK(mesh::find_region(m, mesh::RegionKind::slot_air, 7) >= 0);
   CHECK(mesh::find_region(m, mesh::RegionKind::shaft) >= 0);
 

@@ -3,6 +3,7 @@
 #include <doctest/doctest.h>
 
 #include <cmath>
+#include <complex>
 #include <map>
 #include <numbers>
 #include <set>
@@ -20,7 +21,9 @@ mesh::Winding wind(int slots, int poles, int phases, int layers, int pitch) {
   s.n_layers = layers;
   s.coil_pitch = pitch;
   s.turns_per_coil = 7;
-  return mesh::lay_out(s, slots);
+  mesh::StatorGeometry stator;
+  stator.n_slots = slots;
+  return mesh::lay_out(s, stator);
 }
 
 double kw(const mesh::Winding& w, int electrical_order) {

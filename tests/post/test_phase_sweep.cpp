@@ -31,9 +31,11 @@ Study run(const mesh::Geometry& g, int phases, int layers, int pitch, double mu_
   spec.coil_pitch = pitch;
   spec.turns_per_coil = 10;
   const mesh::Mesh m = mesh::build(g, {layers}, {fineness});
-  const mesh::Winding w = mesh::lay_out(spec, g.stator.n_slots);
+  const mesh::Winding w = mesh::lay_out(spec, g.stator);
   const solver::PhaseFields f = solver::solve_phase_fields(m, w, {mu_iron, mu_iron, mu_iron});
-  return {w, post::phase_sweep(m, w, f, {5.0, 50.0}, {36, 0, 720, 25})};
+  solver::Supply supply;
+  supply.peak_current = 5.0;
+  return {w, post::phase_sweep(m, w, f, supply, {36, 0, 720, 25})};
 }
 
 double harmonic_ratio(const post::StepResult& s, int order) { return std::abs(s.harmonics(order)) / std::abs(s.fundamental); }

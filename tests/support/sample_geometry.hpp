@@ -1,6 +1,8 @@
 #pragma once
 // Small invented stator geometries for tests (made-up numbers, no real machine).
 
+#include <numbers>
+
 #include "mesh/geometry.hpp"
 
 namespace tf::testing {
@@ -18,6 +20,25 @@ inline mesh::Geometry semi_closed_stator() {
   mesh::Geometry g;
   g.stator = {mesh::StatorKind::slotted, 0.050, 0.085, 24, {mesh::SlotShape::semi_closed, 0.007, 0.016, 0.0025, 0.0008, 0.0007}, {}};
   g.rotor = {mesh::RotorKind::iron, 0.0496, 0.016};
+  return g;
+}
+
+/// 4 salient poles (the stator of cases/salient4_two_phase.toml): bore 30 mm, outer 60 mm, shoes
+/// spanning 60° and 3 mm thick, bodies 14 mm wide and 18 mm long (a 9 mm yoke), coil sides 8 mm by
+/// 14 mm, on an iron rotor with a 0.5 mm gap.
+inline mesh::Geometry salient_stator() {
+  mesh::Geometry g;
+  g.stator.kind = mesh::StatorKind::salient;
+  g.stator.bore_radius = 0.030;
+  g.stator.outer_radius = 0.060;
+  g.stator.n_slots = 4;
+  g.stator.poles = {.shoe_arc = std::numbers::pi / 3,
+                    .shoe_height = 0.003,
+                    .body_width = 0.014,
+                    .body_height = 0.018,
+                    .coil_width = 0.008,
+                    .coil_height = 0.014};
+  g.rotor = {mesh::RotorKind::iron, 0.0295, 0.008};
   return g;
 }
 
