@@ -126,7 +126,8 @@ std::string drive_to_json(const solver::Supply& resolved, int n_phases, const Dr
     j["series_element"] = {{"kind", kElements[static_cast<int>(resolved.split.element)]},
                            {"value", report.element_value},
                            {"sized_for_best_field", report.element_sized}};
-    j["current_B_leads_A_deg"] = std::arg(phasors[1] / phasors[0]) * kDeg;
+    const int aux = resolved.split.element_phase;
+    j["auxiliary_current_leads_main_deg"] = std::arg(phasors[aux] / phasors[1 - aux]) * kDeg;
   }
   return j.dump();
 }

@@ -1,14 +1,17 @@
-// turnfield command line: check, winding, mesh, run.
+// turnfield command line: check, winding, mesh, run, compare.
 // Exit status: 0 success, 2 bad input (case file or command line), 1 failure while meshing,
 // solving or writing.
 
 #include <algorithm>
 #include <filesystem>
 #include <iostream>
+#include <string>
+#include <vector>
 
 #include <CLI/CLI.hpp>
 
 #include "app/case_reader.hpp"
+#include "app/compare.hpp"
 #include "app/input_error.hpp"
 #include "app/run_case.hpp"
 #include "app/winding_report.hpp"
@@ -49,6 +52,7 @@ int main(int argc, char** argv) {
   cli.set_version_flag("--version", tf::app::kVersion);
   cli.require_subcommand(1);
   std::string case_path, out_dir;
+  std::vector<std::string> case_paths;
   bool as_json = false, all_steps = false;
   double fineness = 0.0;  // 0: as the case file says
   int field_files = -1;   // -1: as the case file says
@@ -70,12 +74,30 @@ int main(int argc, char** argv) {
       ->check(CLI::Range(0, 1000000));
   run->add_option("--fineness", fineness, "override the case's mesh fineness")->check(CLI::Range(0.1, 20.0));
 
+  auto* compare = cli.add_subcommand("compare", "run several cases and tabulate their field metrics side by side");
+  compare->add_option("CASES", case_paths, "case files (TOML)")->required()->expected(2, 1000);
+  compare->add_option("--out", out_dir, "output folder (default results/comparison)");
+  compare->add_option("--fineness", fineness, "override every case's mesh fineness")->check(CLI::Range(0.1, 20.0));
+  compare->add_option("--field-files", field_files, "override the number of VTU files per case (0: none)")
+      ->check(CLI::Range(0, 1000000));
+
   try {
     cli.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
     const int code = cli.exit(e);
     return code == 0 ? 0 : 2;
   }
+
+  if (compare->parsed())
+    return guarded([&] {
+      std::vector<tf::app::Case> cases;  // all read and checked before anything runs
+      for (const auto& path : case_paths) {
+        cases.push_back(tf::app::read_case(path));
+        if (fineness > 0.0) cases.back().mesh.fineness = fineness;
+      }
+      tf::app::compare_cases(cases, out_dir.empty() ? fs::path("results") / "comparison" : fs::path(out_dir),
+                             field_files, std::cout);
+    });
 
   return guarded([&] {
     tf::app::Case c = tf::app::read_case(case_path);

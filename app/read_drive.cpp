@@ -33,7 +33,7 @@ void read_split_phase(const Fields& f, solver::Supply& s, int n_phases) {
   else
     p.element_value = f.real("series_value", {.min = 0, .max = 1e6, .min_excluded = true,
                                               .unit = p.element == solver::SeriesElement::resistor ? "ohm" : "H"});
-  p.element_phase = static_cast<int>(f.choice_or("series_phase", {"A", "B"}, 1));
+  p.element_phase = static_cast<int>(f.choice_or("series_phase", {"A", "B"}, 0));
 }
 
 }  // namespace

@@ -13,6 +13,7 @@
 #include "mesh/build.hpp"
 #include "mesh/winding.hpp"
 #include "post/atomic_file.hpp"
+#include "post/sequence.hpp"
 #include "post/study.hpp"
 #include "post/summary.hpp"
 #include "post/tables.hpp"
@@ -54,8 +55,30 @@ std::vector<std::string> write_field_files(const fs::path& dir, const mesh::Mesh
   return files;
 }
 
+/// One line on the currents when they are not a plain balanced set.
+void print_drive(std::ostream& out, const solver::Supply& s, int n_phases, const DriveReport& d) {
+  if (s.kind == solver::SupplyKind::balanced) return;
+  if (s.kind == solver::SupplyKind::stepped_dc) {
+    out << fmt::format("  stepped DC, {} states\n", s.states.size());
+    return;
+  }
+  const auto ph = solver::supply_phasors(s, n_phases);
+  if (s.kind == solver::SupplyKind::split_phase) {
+    const char* unit[] = {"ohm", "H", "F"};
+    const int aux = s.split.element_phase, main = 1 - aux;
+    out << fmt::format("  split phase: {} {:.4g} {} in phase {}{}; its current leads phase {}'s by {:.2f} deg\n",
+                       s.split.element == solver::SeriesElement::capacitor ? "capacitor"
+                       : s.split.element == solver::SeriesElement::inductor ? "inductor" : "resistor",
+                       d.element_value, unit[static_cast<int>(s.split.element)], post::phase_name(aux), d.element_sized ? " (sized for the best field)" : "",
+                       post::phase_name(main), std::arg(ph[aux] / ph[main]) * 180 / std::numbers::pi);
+  }
+  const auto seq = post::sequence_components(ph);
+  out << fmt::format("  current sequence components: positive {:.4g} A, negative {:.4g} A{}\n", std::abs(seq.positive),
+                     std::abs(seq.negative), n_phases == 3 ? fmt::format(", zero {:.4g} A", std::abs(seq.zero)) : "");
+}
+
 void print_summary(std::ostream& out, const Case& c, const mesh::Winding& w, const post::StudyResult& r,
-                   const fs::path& dir) {
+                   const solver::Supply& supply, const DriveReport& drive, const fs::path& dir) {
   const post::RotationMetrics& x = r.metrics;
   const auto k = mesh::winding_factors(w, 1)[0];
   out << fmt::format("{}\n", c.title);
@@ -68,15 +91,17 @@ void print_summary(std::ostream& out, const Case& c, const mesh::Winding& w, con
                      x.max_peak, 100 * x.peak_ripple);
   out << fmt::format("  rotation                  {:.3f} deg per step expected, worst deviation {:.4f} deg\n",
                      x.expected_step_deg, x.rotation_uniformity_deg);
-  out << fmt::format("  backward/forward ratio    {:.4f}   harmonic distortion {:.2f} %\n", x.backward_forward_ratio,
+  out << fmt::format("  backward/forward ratio    {:.4f} ({})   harmonic distortion {:.2f} %\n",
+                     x.backward_forward_ratio, x.forward >= x.backward ? "turning counter-clockwise" : "turning clockwise",
                      100 * x.mean_distortion);
+  print_drive(out, supply, c.winding.n_phases, drive);
   out << fmt::format("  results in {}\n", dir.string());
   out << "  " << post::kSafetyCaution << "\n";
 }
 
 }  // namespace
 
-void run_case(const Case& c, const RunOptions& options, std::ostream& out) {
+Headline run_case(const Case& c, const RunOptions& options, std::ostream& out) {
   Progress progress;
   post::RunRecord record;
   auto t = Clock::now();
@@ -124,7 +149,8 @@ void run_case(const Case& c, const RunOptions& options, std::ostream& out) {
   record.winding = &w;
   record.study = &r;
   post::write_summary(dir / "summary.json", record);
-  print_summary(out, c, w, r, dir);
+  print_summary(out, c, w, r, supply, drive, dir);
+  return {r.metrics, mesh::layout_winding_factor(w, 0, w.spec.pole_pairs())};
 }
 
 void mesh_case(const Case& c, const fs::path& out_dir, std::ostream& out) {

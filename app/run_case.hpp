@@ -5,6 +5,7 @@
 #include <ostream>
 
 #include "app/case.hpp"
+#include "post/rotation_metrics.hpp"
 
 namespace tf::app {
 
@@ -15,9 +16,15 @@ struct RunOptions {
   bool all_field_files = false;  ///< a VTU file for every step instead of study.field_files
 };
 
+/// The headline numbers of one run, for comparisons.
+struct Headline {
+  post::RotationMetrics metrics;
+  double winding_factor = 0.0;  ///< fundamental, phase A, star of slots
+};
+
 /// Runs the case and writes its result folder; prints a short human summary to `out`.
 /// Throws mesh::MeshError, solver::SolveError or post::OutputError.
-void run_case(const Case& c, const RunOptions& options, std::ostream& out);
+Headline run_case(const Case& c, const RunOptions& options, std::ostream& out);
 
 /// Meshes the case and writes mesh.vtu (region ids) and regions.csv to out_dir.
 void mesh_case(const Case& c, const std::filesystem::path& out_dir, std::ostream& out);

@@ -36,13 +36,6 @@ RotationMetrics rotation_metrics(const std::vector<std::complex<double>>& fundam
   r.peak_ripple = ripple(peak);
   r.mean_distortion = mean(distortion);
 
-  // Axis steps, electrical angle differences wrapped to (-180°, 180°], then mechanical.
-  r.expected_step_deg = 360.0 / (pole_pairs * K);
-  for (int k = 0; k < K; ++k) {
-    const double step = std::arg(fundamental[(k + 1) % K] / fundamental[k]) / pole_pairs;
-    r.rotation_uniformity_deg = std::max(r.rotation_uniformity_deg, std::abs(step * 180.0 / kPi - r.expected_step_deg));
-  }
-
   std::complex<double> fwd = 0.0, bwd = 0.0;
   for (int k = 0; k < K; ++k) {
     const double wt = 2 * kPi * k / K;
@@ -52,6 +45,14 @@ RotationMetrics rotation_metrics(const std::vector<std::complex<double>>& fundam
   r.forward = std::abs(fwd) / K;
   r.backward = std::abs(bwd) / K;
   r.backward_forward_ratio = r.forward > 0.0 ? r.backward / r.forward : 0.0;
+
+  // Axis steps, electrical angle differences wrapped to (-180°, 180°], then mechanical; the ideal
+  // step turns the way the stronger wave turns.
+  r.expected_step_deg = (r.forward >= r.backward ? 1.0 : -1.0) * 360.0 / (pole_pairs * K);
+  for (int k = 0; k < K; ++k) {
+    const double step = std::arg(fundamental[(k + 1) % K] / fundamental[k]) / pole_pairs;
+    r.rotation_uniformity_deg = std::max(r.rotation_uniformity_deg, std::abs(step * 180.0 / kPi - r.expected_step_deg));
+  }
   return r;
 }
 

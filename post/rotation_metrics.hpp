@@ -14,7 +14,7 @@ struct RotationMetrics {
   double mean_peak = 0.0;         ///< mean_k max_θ |B_r| [T]
   double min_peak = 0.0, max_peak = 0.0;
   double peak_ripple = 0.0;       ///< (max_k peak - min_k peak) / mean_k peak
-  double expected_step_deg = 0.0;        ///< 360°/(p K), mechanical
+  double expected_step_deg = 0.0;        ///< ±360°/(p K), mechanical, signed as the stronger wave turns
   double rotation_uniformity_deg = 0.0;  ///< max_k |axis step - expected step|, mechanical degrees
   double forward = 0.0;   ///< |(1/K) Σ c_k e^{-jωt_k}| [T]: counter-clockwise wave
   double backward = 0.0;  ///< |(1/K) Σ c_k e^{+jωt_k}| [T]: clockwise wave

@@ -20,14 +20,16 @@ enum class SupplyKind {
 
 enum class SeriesElement { resistor, inductor, capacitor };
 
-/// One sinusoidal voltage across two windings in parallel; phase `element_phase` has the element
-/// in series. The winding currents follow from the FE inductances (see split_phase.hpp).
+/// One sinusoidal voltage across two windings in parallel; phase `element_phase` (the auxiliary
+/// winding, A by default) has the element in series. A capacitor or resistor makes its current
+/// lead, and with phase B's axis 90° ahead of A's the field then turns counter-clockwise.
+/// The winding currents follow from the FE inductances (see split_phase.hpp).
 struct SplitPhase {
   double voltage_rms = 0.0;              ///< [V]
   std::vector<double> resistance;        ///< per phase [ohm], the whole winding's
   SeriesElement element = SeriesElement::capacitor;
   double element_value = 0.0;            ///< [ohm], [H] or [F]; 0 with a capacitor: sized for the best field
-  int element_phase = 1;                 ///< 0-based
+  int element_phase = 0;                 ///< 0-based
 };
 
 struct Supply {

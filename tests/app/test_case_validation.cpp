@@ -43,7 +43,13 @@ tf::mesh::Geometry semi_closed_stator() {
 }
 
 tf::mesh::WindingSpec winding(int phases, int poles, int layers, int pitch, int paths = 1) {
-  return {.n_phases = phases, .n_poles = poles, .n_layers = layers, .coil_pitch = pitch, .parallel_paths = paths};
+  tf::mesh::WindingSpec w;
+  w.n_phases = phases;
+  w.n_poles = poles;
+  w.n_layers = layers;
+  w.coil_pitch = pitch;
+  w.parallel_paths = paths;
+  return w;
 }
 
 bool contains(const std::string& text, const std::string& part) { return text.find(part) != std::string::npos; }
