@@ -299,8 +299,11 @@ std::optional<Problem> winding_problem(const mesh::WindingSpec& w, const mesh::S
                          : fmt::format("q = Q/(2p·m) = {}/({}·{}) = {}/{} slots per pole and phase: {}", n_slots,
                                        w.n_poles, w.n_phases, n_slots / common, belts / common, *why),
                    table ? "a balanced slot table"
-                         : fmt::format("Q/(m·t) a whole number, with t = gcd(Q, p) = {} (here {}/({}·{}))", t,
-                                       n_slots, w.n_phases, t)};
+                   : w.n_phases % 2 ? fmt::format("Q/(m·t) a whole number, with t = gcd(Q, p) = {} (here {}/({}·{}))",
+                                                  t, n_slots, w.n_phases, t)
+                                    : fmt::format("Q/(2m·t) a whole number for an even phase number, with t = gcd(Q, "
+                                                  "p) = {} (here {}/(2·{}·{}))",
+                                                  t, n_slots, w.n_phases, t)};
   }
   if (table) return std::nullopt;
   return paths_problem(w, n_slots, integral);

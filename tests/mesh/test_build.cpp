@@ -21,7 +21,7 @@ void check_mesh(const mesh::Geometry& g, int n_layers, const mesh::Mesh& m) {
     for (int s = 2; s <= Q; ++s) {
       const int r = mesh::find_region(m, mesh::RegionKind::coil, s, l);
       REQUIRE(r >= 0);
-      CHECK(area[r] == doctest::Approx(area[first]).epsilon(1e-9));
+      CHECK(area[r] == doctest::Approx(area[first]).epsilon(1e-9).scale(0));
     }
   }
   CHECK(mesh::find_region(m, mesh::RegionKind::coil, 1, n_layers + 1) < 0);
@@ -30,7 +30,7 @@ void check_mesh(const mesh::Geometry& g, int n_layers, const mesh::Mesh& m) {
   const double coil_height = sl.shape == mesh::SlotShape::open ? sl.depth : sl.depth - sl.tip_height - sl.wedge_height;
   double coil_area = 0.0;
   for (int l = 1; l <= n_layers; ++l) coil_area += area[mesh::find_region(m, mesh::RegionKind::coil, 1, l)];
-  CHECK(coil_area == doctest::Approx(sl.width * coil_height).epsilon(sl.shape == mesh::SlotShape::open ? 2e-3 : 1e-9));
+  CHECK(coil_area == doctest::Approx(sl.width * coil_height).epsilon(sl.shape == mesh::SlotShape::open ? 2e-3 : 1e-9).scale(0));
 }
 
 }  // namespace
@@ -43,7 +43,7 @@ TEST_CASE("open-slot stator, two layers: regions, identical slots, sliding circl
   testing::check_gap_layers(g, m);
   testing::check_merged(m);
   CHECK(m.outer_nodes.size() > static_cast<std::size_t>(g.stator.n_slots));
-  for (int node : m.outer_nodes) CHECK(m.nodes.row(node).norm() == doctest::Approx(g.stator.outer_radius).epsilon(1e-9));
+  for (int node : m.outer_nodes) CHECK(m.nodes.row(node).norm() == doctest::Approx(g.stator.outer_radius).epsilon(1e-9).scale(0));
 }
 
 TEST_CASE("semi-closed stator, one layer, and a bore with no rotor") {

@@ -57,11 +57,11 @@ void check_coil_sides(const mesh::Mesh& m, int n_poles) {
       const int r = mesh::find_region(m, mesh::RegionKind::coil, k, layer);
       REQUIRE(r >= 0);
       CHECK(m.regions[r].name == "pole_" + std::to_string(k) + "_coil_" + std::to_string(layer));
-      CHECK(area[r] == doctest::Approx(coil_area).epsilon(1e-9));
+      CHECK(area[r] == doctest::Approx(coil_area).epsilon(1e-9).scale(0));
       const double side = layer == 1 ? 1.0 : -1.0;
       const Eigen::Vector2d c = centroid(m, r, k, n_poles);
-      CHECK(c(0) == doctest::Approx(coil_floor + 0.5 * coil_height).epsilon(1e-9));
-      CHECK(c(1) == doctest::Approx(side * 0.5 * (body_half + coil_outer)).epsilon(1e-9));
+      CHECK(c(0) == doctest::Approx(coil_floor + 0.5 * coil_height).epsilon(1e-9).scale(0));
+      CHECK(c(1) == doctest::Approx(side * 0.5 * (body_half + coil_outer)).epsilon(1e-9).scale(0));
       for (int t = 0; t < m.n_triangles(); ++t) {
         if (m.triangle_region(t) != r) continue;
         for (int i = 0; i < 3; ++i) {
@@ -152,5 +152,5 @@ TEST_CASE("far from the gap, elements resolve the pole body and coil sides") {
   const mesh::ElementSizes h = mesh::element_sizes(g, {1.0});
   CHECK(h.largest > 0.0);
   CHECK(h.largest <= 0.5 * 0.008 + 1e-12);  // half the narrower of body (14 mm) and coil side (8 mm)
-  CHECK(mesh::element_sizes(g, {2.0}).largest == doctest::Approx(0.5 * h.largest));
+  CHECK(mesh::element_sizes(g, {2.0}).largest == doctest::Approx(0.5 * h.largest).scale(0));
 }
