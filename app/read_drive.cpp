@@ -23,7 +23,7 @@ void read_sinusoid(const Fields& f, solver::Supply& s, int n_phases) {
 void read_split_phase(const Fields& f, solver::Supply& s, int n_phases) {
   if (n_phases != 2)
     f.fail("kind", fmt::format("a split-phase supply feeds two windings, and [winding] phases = {}", n_phases),
-           "phases = 2 (the main winding A and the auxiliary winding B)");
+           "phases = 2 (the auxiliary winding, which takes the series element, and the main winding)");
   solver::SplitPhase& p = s.split;
   p.voltage_rms = f.real("voltage_rms", {.min = 0, .max = 1e6, .min_excluded = true, .unit = "V"});
   p.resistance = read_reals(f, "resistances", {.min = 0, .max = 1e6, .unit = "ohm"}, 2);

@@ -68,7 +68,9 @@ std::vector<std::vector<double>> read_real_rows(const Fields& f, std::string_vie
   std::vector<std::vector<double>> rows;
   for (std::size_t r = 0; r < a.size(); ++r) {
     const auto* row = a.get(r)->as_array();
-    if (!row || row->size() != row_size) f.fail_at(*a.get(r), key, std::to_string(r), "not a row of the right length", expected);
+    if (!row || row->size() != row_size)
+      f.fail_at(*a.get(r), key, std::to_string(r),
+                row ? fmt::format("a row of {} values", row->size()) : std::string("not a row"), expected);
     std::vector<double> values;
     for (std::size_t c = 0; c < row_size; ++c)
       values.push_back(number(f, *row->get(c), key, fmt::format("{}][{}", r, c), range));

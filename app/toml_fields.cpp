@@ -244,8 +244,9 @@ const toml::array& Fields::array(std::string_view key, std::string_view expected
 void Fields::fail_at(const toml::node& node, std::string_view key, std::string_view index, std::string_view problem,
                      std::string_view expected) const {
   const int at = std::max<int>(1, static_cast<int>(node.source().begin.line));
-  app::fail(*doc_, at, fmt::format("{}{}[{}] = {}", table_prefix(name_), key, index, format_value(node)), problem,
-            expected);
+  const std::string value = format_value(node);
+  const std::string subject = fmt::format("{}{}[{}]", table_prefix(name_), key, index);
+  app::fail(*doc_, at, value.empty() ? subject : subject + " = " + value, problem, expected);
 }
 
 double Fields::real(std::string_view key, const RealRange& range) const {

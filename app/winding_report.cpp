@@ -33,11 +33,17 @@ std::string q_text(const mesh::Winding& w) {
 
 void print_header(const mesh::Winding& w, std::ostream& out) {
   const auto& spec = w.spec;
-  out << fmt::format("{} {}, {} poles, {} phases, {} layer{}", w.n_slots,
-                     w.rule == mesh::LayoutRule::pole_coils ? "salient poles" : "slots", spec.n_poles, spec.n_phases,
-                     spec.n_layers, spec.n_layers > 1 ? "s" : "");
-  if (w.rule != mesh::LayoutRule::table) out << fmt::format(", coil pitch {} slots", spec.coil_pitch);
-  out << fmt::format(" (pole pitch {:g})\n", static_cast<double>(w.n_slots) / spec.n_poles);
+  if (w.rule == mesh::LayoutRule::pole_coils)
+    out << fmt::format("{} salient poles, a {}-pole field, {} phases", w.n_slots, spec.n_poles, spec.n_phases);
+  else
+    out << fmt::format("{} slots, {} poles, {} phases, {} layer{}", w.n_slots, spec.n_poles, spec.n_phases,
+                       spec.n_layers, spec.n_layers > 1 ? "s" : "");
+  if (w.rule != mesh::LayoutRule::table && w.rule != mesh::LayoutRule::pole_coils)
+    out << fmt::format(", coil pitch {} slots", spec.coil_pitch);
+  if (w.rule == mesh::LayoutRule::pole_coils)
+    out << "\n";
+  else
+    out << fmt::format(" (pole pitch {:g} slots)\n", static_cast<double>(w.n_slots) / spec.n_poles);
   out << fmt::format("layout: {}; q = {} slots per pole per phase; periodicity t = gcd(Q, p) = {}\n",
                      rule_name(w.rule), q_text(w), w.periodicity());
   out << fmt::format("{:g} series turns per phase; {} parallel path{}\n\n", w.series_turns(), spec.parallel_paths,
@@ -45,9 +51,10 @@ void print_header(const mesh::Winding& w, std::ostream& out) {
 }
 
 void print_table(const mesh::Winding& w, std::ostream& out) {
-  out << "slot";
+  out << (w.rule == mesh::LayoutRule::pole_coils ? "pole" : "slot");
   for (int l = 1; l <= w.spec.n_layers; ++l) out << fmt::format("  layer {}", l);
-  out << "   (+: positive phase current flows along +z, out of the page)\n";
+  out << (w.rule == mesh::LayoutRule::pole_coils ? "   (layer 1: counter-clockwise side of the pole body)\n" : "\n");
+  out << "(+: positive phase current flows along +z, out of the page)\n";
   for (int s = 1; s <= w.n_slots; ++s) {
     out << fmt::format("{:>4}", s);
     for (int l = 1; l <= w.spec.n_layers; ++l) {

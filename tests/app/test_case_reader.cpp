@@ -149,6 +149,16 @@ const std::vector<BadFile> bad_files = {
      25,
      {"[rotor] outer_radius = 0.03", "the rotor touches or overlaps the pole faces (R_b = 30.00 mm)"}},
     {"bad_syntax.toml", 15, {"not valid TOML"}},
+    {"bad_table_slot_twice.toml", 46, {"[winding] sides[5]", "slot 5 layer 1 is used twice", "each slot-layer in at most one row"}},
+    {"bad_table_unbalanced.toml", 40, {"[winding] sides", "as many go (+) as return (-)", "expected a balanced slot table"}},
+    {"bad_table_phase_letter.toml", 44, {"[winding] sides[3][2] = \"C\"", "not one of the choices", "\"A\", \"B\""}},
+    {"bad_table_with_pitch.toml", 39, {"[winding] coil_pitch = 6", "not used with a slot table"}},
+    {"bad_supply_kind.toml", 43, {"[supply] kind = \"phasor\"", "did you mean \"phasors\"?", "\"split_phase\""}},
+    {"bad_supply_foreign_key.toml", 45, {"[supply] peak_current = 6.0", "not used by this kind of supply", "kind = \"phasors\""}},
+    {"bad_supply_phasor_count.toml", 45, {"[supply] peak_currents", "3 values", "an array of 2 numbers"}},
+    {"bad_split_phase_three_phases.toml", 43, {"[supply] kind = \"split_phase\"", "[winding] phases = 3", "expected phases = 2"}},
+    {"bad_states_row.toml", 45, {"[supply] states[1]", "a row of 3 values", "rows of 2 numbers"}},
+    {"bad_states_with_steps.toml", 51, {"[study] steps = 8", "not used with a stepped DC supply"}},
 };
 
 }  // namespace
