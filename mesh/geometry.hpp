@@ -20,8 +20,17 @@ struct Slot {
 };
 
 enum class StatorKind {
-  slotted,  ///< a yoke with Q slots in its bore
-  salient,  ///< P projecting poles, each carrying a concentrated coil round its body
+  slotted,   ///< a yoke with Q slots in its bore
+  salient,   ///< P projecting poles, each carrying a concentrated coil round its body
+  slotless,  ///< an air-cored winding annulus of conductor sectors inside a smooth iron ring
+};
+
+/// The winding annulus of a slotless stator: n_slots conductor sectors, sector k centred at
+/// 2*pi*(k - 1)/n_slots, between the bore radius and outer_radius; air between the sectors.
+/// The iron ring runs from outer_radius to the stator's outer radius.
+struct SlotlessBelts {
+  double outer_radius = 0.0;  ///< [m]
+  double span = 0.0;          ///< angle of each conductor sector [rad], below 2*pi/n_slots
 };
 
 /// Projecting poles of a salient-pole stator. Pole k is centred at 2*pi*(k - 1)/P.
@@ -41,6 +50,10 @@ struct StatorGeometry {
   int n_slots = 0;            ///< slots Q; for a salient-pole stator, the number of poles P
   Slot slot;                  ///< slotted stators only
   SalientPoles poles;         ///< salient-pole stators only
+  SlotlessBelts belts;        ///< slotless stators only
+  /// Where A = 0 is imposed [m]: 0 for the stator's outer surface; larger for an air ring outside
+  /// the stator (machines whose yoke does not keep the field in, such as TEAM problem 30a).
+  double boundary_radius = 0.0;
 };
 
 /// How each slot is divided among coil sides. Salient-pole stators always carry two sides per
@@ -59,6 +72,7 @@ struct RotorGeometry {
   RotorKind kind = RotorKind::iron;
   double outer_radius = 0.0;  ///< [m]; with no rotor, the inner edge of the gap band that is sampled
   double shaft_radius = 0.0;  ///< [m]; 0 for no separate shaft
+  double sleeve_thickness = 0.0;  ///< [m]; a conducting sleeve on the iron rotor's surface, 0 for none
 };
 
 struct Geometry {

@@ -22,6 +22,8 @@ enum class RegionKind {
   slot_air,  ///< slot opening and wedge space, or the air between salient poles; no current
   gap,       ///< air gap, stator or rotor side of the sliding circle
   bore_air,  ///< air filling the bore when there is no rotor
+  rotor_sleeve,  ///< a conducting sleeve on the rotor surface
+  outer_air,     ///< air outside the stator, out to the boundary radius
 };
 
 struct Region {

@@ -22,6 +22,7 @@ double relative_permeability(const mesh::Region& r, const Materials& mat) {
     case mesh::RegionKind::stator_iron: return mat.stator_iron_mu_r;
     case mesh::RegionKind::rotor_iron: return mat.rotor_iron_mu_r;
     case mesh::RegionKind::shaft: return mat.shaft_mu_r;
+    case mesh::RegionKind::rotor_sleeve: return mat.sleeve_mu_r;
     default: return 1.0;  // coils, slot air, gap, bore air
   }
 }
