@@ -10,16 +10,24 @@ namespace tf::testing {
 /// 36 slots, open rectangular slots, iron rotor: bore 60 mm, outer 100 mm, 0.5 mm gap.
 inline mesh::Geometry open_slot_stator() {
   mesh::Geometry g;
-  g.stator = {mesh::StatorKind::slotted, 0.060, 0.100, 36, {mesh::SlotShape::open, 0.005, 0.018, 0.0, 0.0, 0.0}, {}};
-  g.rotor = {mesh::RotorKind::iron, 0.0595, 0.020};
+  g.stator.bore_radius = 0.060;
+  g.stator.outer_radius = 0.100;
+  g.stator.n_slots = 36;
+  g.stator.slot = {mesh::SlotShape::open, 0.005, 0.018, 0.0, 0.0, 0.0};
+  g.rotor.outer_radius = 0.0595;
+  g.rotor.shaft_radius = 0.020;
   return g;
 }
 
 /// 24 slots, semi-closed slots with tips and a wedge: bore 50 mm, outer 85 mm, 0.4 mm gap.
 inline mesh::Geometry semi_closed_stator() {
   mesh::Geometry g;
-  g.stator = {mesh::StatorKind::slotted, 0.050, 0.085, 24, {mesh::SlotShape::semi_closed, 0.007, 0.016, 0.0025, 0.0008, 0.0007}, {}};
-  g.rotor = {mesh::RotorKind::iron, 0.0496, 0.016};
+  g.stator.bore_radius = 0.050;
+  g.stator.outer_radius = 0.085;
+  g.stator.n_slots = 24;
+  g.stator.slot = {mesh::SlotShape::semi_closed, 0.007, 0.016, 0.0025, 0.0008, 0.0007};
+  g.rotor.outer_radius = 0.0496;
+  g.rotor.shaft_radius = 0.016;
   return g;
 }
 
@@ -38,7 +46,8 @@ inline mesh::Geometry salient_stator() {
                     .body_height = 0.018,
                     .coil_width = 0.008,
                     .coil_height = 0.014};
-  g.rotor = {mesh::RotorKind::iron, 0.0295, 0.008};
+  g.rotor.outer_radius = 0.0295;
+  g.rotor.shaft_radius = 0.008;
   return g;
 }
 
