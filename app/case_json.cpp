@@ -1,5 +1,6 @@
 #include "app/case_json.hpp"
 
+#include <algorithm>
 #include <numbers>
 
 #include <cmath>
@@ -37,16 +38,31 @@ nlohmann::json supply_json(const solver::Supply& s) {
   return j;
 }
 
-}  // namespace
+nlohmann::json materials_json(const solver::Materials& m) {
+  return {{"stator_iron_relative_permeability", m.stator_iron_mu_r},
+          {"rotor_iron_relative_permeability", m.rotor_iron_mu_r},
+          {"shaft_relative_permeability", m.shaft_mu_r},
+          {"sleeve_relative_permeability", m.sleeve_mu_r},
+          {"stator_iron_conductivity_S_per_m", m.stator_iron_sigma},
+          {"rotor_iron_conductivity_S_per_m", m.rotor_iron_sigma},
+          {"shaft_conductivity_S_per_m", m.shaft_sigma},
+          {"sleeve_conductivity_S_per_m", m.sleeve_sigma}};
+}
 
-std::string case_to_json(const Case& c) {
+/// The stator as given, with the dimensions of its kind: slots, poles or conductor sectors.
+nlohmann::json stator_json(const mesh::StatorGeometry& s) {
   using nlohmann::json;
-  const auto& s = c.geometry.stator;
-  const auto& r = c.geometry.rotor;
-  json stator = {{"kind", s.kind == mesh::StatorKind::salient ? "salient" : "slotted"},
+  const char* stator_kinds[] = {"slotted", "salient", "slotless"};
+  json stator = {{"kind", stator_kinds[static_cast<int>(s.kind)]},
                  {"bore_radius_m", s.bore_radius},
-                 {"outer_radius_m", s.outer_radius}};
-  if (s.kind == mesh::StatorKind::salient) {
+                 {"outer_radius_m", s.outer_radius},
+                 // Where A = 0 is imposed: the outer surface unless air surrounds the stator.
+                 {"boundary_radius_m", std::max(s.outer_radius, s.boundary_radius)}};
+  if (s.kind == mesh::StatorKind::slotless) {
+    stator["belts"] = {{"count", s.n_slots},
+                       {"span_deg", s.belts.span * 180.0 / std::numbers::pi},
+                       {"outer_radius_m", s.belts.outer_radius}};
+  } else if (s.kind == mesh::StatorKind::salient) {
     stator["poles"] = {{"count", s.n_slots},
                        {"shoe_arc_deg", s.poles.shoe_arc * 180.0 / std::numbers::pi},
                        {"shoe_height_m", s.poles.shoe_height},
@@ -66,20 +82,26 @@ std::string case_to_json(const Case& c) {
     stator["slots"] = s.n_slots;
     stator["slot"] = slot;
   }
+  return stator;
+}
+
+}  // namespace
+
+std::string case_to_json(const Case& c) {
+  using nlohmann::json;
+  const auto& r = c.geometry.rotor;
   json j = {
       {"case_file", c.path},
       {"title", c.title},
       {"stack_length_m", c.stack_length},
-      {"stator", stator},
+      {"stator", stator_json(c.geometry.stator)},
       {"rotor",
        {{"kind", r.kind == mesh::RotorKind::iron ? "iron" : "none"},
         {"outer_radius_m", r.outer_radius},
         {"shaft_radius_m", r.shaft_radius},
+        {"sleeve_thickness_m", r.sleeve_thickness},
         {"air_gap_m", c.geometry.gap_length()}}},
-      {"materials",
-       {{"stator_iron_relative_permeability", c.materials.stator_iron_mu_r},
-        {"rotor_iron_relative_permeability", c.materials.rotor_iron_mu_r},
-        {"shaft_relative_permeability", c.materials.shaft_mu_r}}},
+      {"materials", materials_json(c.materials)},
       {"winding",
        {{"phases", c.winding.n_phases},
         {"poles", c.winding.n_poles},
@@ -89,7 +111,9 @@ std::string case_to_json(const Case& c) {
         {"parallel_paths", c.winding.parallel_paths}}},
       {"supply", supply_json(c.supply)},
       {"study",
-       {{"steps", c.study.n_steps},
+       {{"kind", c.study.kind == post::StudyKind::eddy_currents ? "eddy_currents" : "phase_angles"},
+        {"rotor_speeds_rad_s", c.study.rotor_speeds},
+        {"steps", c.study.n_steps},
         {"field_files", c.study.n_field_files},
         {"gap_points", c.study.n_gap_points},
         {"harmonics", c.study.max_harmonic}}},

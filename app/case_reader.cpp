@@ -13,6 +13,7 @@
 #include "app/case_validation.hpp"
 #include "app/input_error.hpp"
 #include "app/read_drive.hpp"
+#include "app/toml_arrays.hpp"
 #include "app/toml_fields.hpp"
 
 namespace tf::app {
@@ -79,56 +80,128 @@ void read_poles(const Fields& stator, mesh::StatorGeometry& s) {
   s.poles.coil_height = f.real("coil_height", slot_size);
 }
 
-mesh::StatorGeometry read_stator(const Fields& root) {
-  const Fields f = root.table("stator", {"kind", "bore_radius", "outer_radius", "slots", "slot", "poles"});
-  mesh::StatorGeometry s;
-  const bool salient = f.has("kind") && f.choice("kind", {"slotted", "salient"}) == 1;
-  s.kind = salient ? mesh::StatorKind::salient : mesh::StatorKind::slotted;
-  s.bore_radius = f.real("bore_radius", radius);
-  // Only the plain range here; "larger than the bore" is a consistency check, after all keys.
-  s.outer_radius = f.real("outer_radius", radius);
-  // Keys of the other kind are most likely left over from another case; ignoring them would hide it.
-  if (salient) {
-    f.reject("slots", "not used by salient-pole stators",
-             "no such key (the poles are counted by [stator.poles] count), or kind = \"slotted\"");
-    f.reject("slot", "not used by salient-pole stators", "no such table, or kind = \"slotted\"");
-    read_poles(f, s);
-    return s;
+/// [stator.belts] of a slotless stator. The count goes to n_slots: to the winding, each conductor
+/// sector is a slot.
+void read_belts(const Fields& stator, mesh::StatorGeometry& s) {
+  const Fields f = stator.table("belts", {"count", "span_deg", "outer_radius"});
+  s.n_slots = f.integer("count", {.min = 2, .max = 2000});
+  // Up to, not including, the belt pitch; that the sectors leave room between them is a consistency check.
+  const RealRange arc{
+      .min = 0, .max = 360.0 / s.n_slots, .min_excluded = true, .max_excluded = true, .unit = "degrees"};
+  s.belts.span = f.real("span_deg", arc) * std::numbers::pi / 180.0;
+  // Only the plain range here; "between the bore and the outer radius" is a consistency check.
+  s.belts.outer_radius = f.real("outer_radius", radius);
+}
+
+/// Keys of another stator kind are most likely left over from another case; ignoring them would hide it.
+void reject_other_kinds(const Fields& f, mesh::StatorKind kind) {
+  const bool salient = kind == mesh::StatorKind::salient;
+  const std::string not_used = fmt::format(
+      "not used by {} stators", salient ? "salient-pole" : kind == mesh::StatorKind::slotless ? "slotless" : "slotted");
+  if (kind != mesh::StatorKind::slotted) {
+    f.reject("slots", not_used,
+             fmt::format("no such key (the {} counted by [stator.{}] count), or kind = \"slotted\"",
+                         salient ? "poles are" : "conductor sectors are", salient ? "poles" : "belts"));
+    f.reject("slot", not_used, "no such table, or kind = \"slotted\"");
   }
-  f.reject("poles", "not used by slotted stators", "no such table, or kind = \"salient\"");
-  s.n_slots = f.integer("slots", {.min = 3, .max = 2000});
-  s.slot = read_slot(f);
+  if (!salient) f.reject("poles", not_used, "no such table, or kind = \"salient\"");
+  if (kind != mesh::StatorKind::slotless) f.reject("belts", not_used, "no such table, or kind = \"slotless\"");
+}
+
+mesh::StatorGeometry read_stator(const Fields& root) {
+  const Fields f = root.table(
+      "stator", {"kind", "bore_radius", "outer_radius", "boundary_radius", "slots", "slot", "poles", "belts"});
+  mesh::StatorGeometry s;
+  s.kind = static_cast<mesh::StatorKind>(f.choice_or("kind", {"slotted", "salient", "slotless"}, 0));
+  s.bore_radius = f.real("bore_radius", radius);
+  // Only the plain ranges here; "larger than the bore" and "beyond the stator" are consistency checks.
+  s.outer_radius = f.real("outer_radius", radius);
+  s.boundary_radius = f.real_or("boundary_radius", 0.0, {.min = 0, .max = 50, .min_excluded = true, .unit = "m"});
+  reject_other_kinds(f, s.kind);
+  if (s.kind == mesh::StatorKind::salient) {
+    read_poles(f, s);
+  } else if (s.kind == mesh::StatorKind::slotless) {
+    read_belts(f, s);
+  } else {
+    s.n_slots = f.integer("slots", {.min = 3, .max = 2000});
+    s.slot = read_slot(f);
+  }
   return s;
 }
 
 mesh::RotorGeometry read_rotor(const Fields& root) {
-  const Fields f = root.table("rotor", {"kind", "outer_radius", "shaft_radius"});
+  const Fields f = root.table("rotor", {"kind", "outer_radius", "shaft_radius", "sleeve_thickness"});
   mesh::RotorGeometry r;
   r.kind = f.choice("kind", {"iron", "none"}) == 0 ? mesh::RotorKind::iron : mesh::RotorKind::none;
   if (r.kind == mesh::RotorKind::none)
-    f.reject("shaft_radius", "not used without a rotor", "no such key, or kind = \"iron\"");
+    for (const char* key : {"shaft_radius", "sleeve_thickness"})
+      f.reject(key, "not used without a rotor", "no such key, or kind = \"iron\"");
   r.outer_radius = f.real("outer_radius", radius);
-  if (r.kind == mesh::RotorKind::iron)
+  if (r.kind == mesh::RotorKind::iron) {
     r.shaft_radius = f.real_or("shaft_radius", 0.0, {.min = 0, .max = 5, .unit = "m"});
+    // "Thinner than the rotor outside the shaft" is a consistency check.
+    r.sleeve_thickness = f.real_or("sleeve_thickness", 0.0, {.min = 0, .max = 5, .min_excluded = true, .unit = "m"});
+  }
   return r;
 }
 
 double read_permeability(const Fields& f) { return f.real("relative_permeability", permeability); }
 
-solver::Materials read_materials(const Fields& root, mesh::RotorKind rotor) {
-  const Fields f = root.table("materials", {"stator_iron", "rotor_iron", "shaft"});
+/// A part's optional conductivity [S/m]: 0 (the default) for laminations and insulators. Only
+/// eddy-current studies use it.
+double read_conductivity(const Fields& f) {
+  return f.real_or("conductivity", 0.0, {.min = 0, .max = 1e9, .unit = "S/m"});
+}
+
+struct Part {
+  double mu_r, sigma;
+};
+
+/// An optional [materials.<part>] table: its permeability and conductivity, each with its default.
+Part read_part(const Fields& materials, std::string_view part, Part defaults) {
+  const auto t = materials.optional_table(part, {"relative_permeability", "conductivity"});
+  if (!t) return defaults;
+  return {t->real_or("relative_permeability", defaults.mu_r, permeability), read_conductivity(*t)};
+}
+
+solver::Materials read_materials(const Fields& root, const mesh::RotorGeometry& rotor) {
+  const Fields f = root.table("materials", {"stator_iron", "rotor_iron", "shaft", "rotor_sleeve"});
   solver::Materials m;
-  m.stator_iron_mu_r = read_permeability(f.table("stator_iron", {"relative_permeability"}));
-  if (rotor == mesh::RotorKind::none) {
-    // A material for a part that is not there is most likely a leftover of another case.
-    for (const char* key : {"rotor_iron", "shaft"})
+  const Fields stator = f.table("stator_iron", {"relative_permeability", "conductivity"});
+  m.stator_iron_mu_r = read_permeability(stator);
+  m.stator_iron_sigma = read_conductivity(stator);
+  // A material for a part that is not there is most likely a leftover of another case.
+  if (rotor.kind == mesh::RotorKind::none) {
+    for (const char* key : {"rotor_iron", "shaft", "rotor_sleeve"})
       f.reject(key, "not used, since [rotor] kind = \"none\"", "no such table, or [rotor] kind = \"iron\"");
     return m;
   }
-  if (auto t = f.optional_table("rotor_iron", {"relative_permeability"}))
-    m.rotor_iron_mu_r = read_permeability(*t);
-  if (auto t = f.optional_table("shaft", {"relative_permeability"})) m.shaft_mu_r = read_permeability(*t);
+  if (rotor.sleeve_thickness <= 0.0)
+    f.reject("rotor_sleeve", "not used, since the rotor has no sleeve",
+             "no such table, or a sleeve given by [rotor] sleeve_thickness");
+  const Part iron = read_part(f, "rotor_iron", {m.rotor_iron_mu_r, m.rotor_iron_sigma});
+  const Part shaft = read_part(f, "shaft", {m.shaft_mu_r, m.shaft_sigma});
+  const Part sleeve = read_part(f, "rotor_sleeve", {m.sleeve_mu_r, m.sleeve_sigma});
+  m.rotor_iron_mu_r = iron.mu_r;
+  m.rotor_iron_sigma = iron.sigma;
+  m.shaft_mu_r = shaft.mu_r;
+  m.shaft_sigma = shaft.sigma;
+  m.sleeve_mu_r = sleeve.mu_r;
+  m.sleeve_sigma = sleeve.sigma;
   return m;
+}
+
+/// Eddy currents: sinusoidal supplies of given currents, and the rotor speeds to solve at.
+Study read_eddy_study(const Fields& f, const solver::Supply& supply, Study s) {
+  if (supply.kind == solver::SupplyKind::stepped_dc || supply.kind == solver::SupplyKind::split_phase)
+    f.fail("kind", "an eddy-current study needs sinusoidal currents given in [supply]",
+           "[supply] kind = \"balanced\" or \"phasors\", or kind = \"phase_angles\" here");
+  for (const char* key : {"steps", "gap_points", "harmonics"})
+    f.reject(key, "used by phase-angle studies only", "no such key, or kind = \"phase_angles\"");
+  s.rotor_speeds = read_reals(f, "rotor_speeds", {.min = -1e5, .max = 1e5, .unit = "rad/s"});
+  s.n_field_files = f.integer_or("field_files", static_cast<int>(s.rotor_speeds.size()), {.min = 0, .max = 100000});
+  s.n_steps = static_cast<int>(s.rotor_speeds.size());
+  return s;
 }
 
 Study read_study(const Fields& root, const solver::Supply& supply) {
@@ -137,8 +210,12 @@ Study read_study(const Fields& root, const solver::Supply& supply) {
   const bool states = supply.kind == solver::SupplyKind::stepped_dc;
   if (states) s.n_steps = static_cast<int>(supply.states.size());
   s.n_field_files = std::min(s.n_field_files, s.n_steps);
-  const auto f = root.optional_table("study", {"steps", "field_files", "gap_points", "harmonics"});
+  const auto f =
+      root.optional_table("study", {"kind", "rotor_speeds", "steps", "field_files", "gap_points", "harmonics"});
   if (!f) return s;
+  s.kind = static_cast<post::StudyKind>(f->choice_or("kind", {"phase_angles", "eddy_currents"}, 0));
+  if (s.kind == post::StudyKind::eddy_currents) return read_eddy_study(*f, supply, s);
+  f->reject("rotor_speeds", "used by eddy-current studies only", "no such key, or kind = \"eddy_currents\"");
   if (states) f->reject("steps", "not used with a stepped DC supply", "no such key: each state is one step");
   s.n_steps = f->integer_or("steps", s.n_steps, {.min = states ? 2 : 3, .max = 100000});
   // "No more than the steps" is a consistency check, so its message can name the steps.
@@ -166,7 +243,7 @@ Case read_fields(const Document& doc) {
                        .real("stack_length", {.min = 0, .max = 10, .min_excluded = true, .unit = "m"});
   c.geometry.stator = read_stator(root);
   c.geometry.rotor = read_rotor(root);
-  c.materials = read_materials(root, c.geometry.rotor.kind);
+  c.materials = read_materials(root, c.geometry.rotor);
   c.winding = read_winding(root, c.geometry.stator);
   c.supply = read_supply(root, c.winding.n_phases);
   c.study = read_study(root, c.supply);

@@ -26,6 +26,8 @@ constexpr double min_coil_share = 0.2;
 // shoes, neighbouring coil sides, coil and yoke) and for the shoe reaching past the body, since
 // thinner slivers of air or iron need needlessly tiny elements too.
 constexpr double min_clearance = min_tooth;
+// Air between the stator and an outer boundary: thinner would be a sliver, not a boundary region.
+constexpr double min_outer_air = 1.0e-3;
 
 std::string mm(double metres) { return fmt::format("{:.2f} mm", metres * 1e3); }
 
@@ -169,11 +171,38 @@ std::optional<Problem> pole_coil_problem(const mesh::StatorGeometry& s, const me
                              : "narrower coil sides (coil_width), to leave room beside the yoke"};
 }
 
+/// The winding annulus of a slotless stator: between the bore and the outer radius, leaving an iron
+/// ring (however thin) behind it, and room between neighbouring conductor sectors.
+std::optional<Problem> belts_problem(const mesh::StatorGeometry& s) {
+  const double r_w = s.belts.outer_radius;
+  const std::string expected =
+      fmt::format("an outer radius above {} and below {}", mm(s.bore_radius), mm(s.outer_radius));
+  if (r_w <= s.bore_radius)
+    return Problem{"stator.belts.outer_radius",
+                   fmt::format("the conductor sectors end inside the bore (bore radius {})", mm(s.bore_radius)),
+                   expected};
+  if (r_w >= s.outer_radius)
+    return Problem{"stator.belts.outer_radius",
+                   fmt::format("the conductor sectors leave no iron ring inside the stator's outer radius {}",
+                               mm(s.outer_radius)),
+                   expected};
+  // Neighbouring sectors face each other with radial edges, so they are closest at the bore.
+  const double pitch = 2.0 * std::numbers::pi / s.n_slots;
+  const double apart = 2.0 * s.bore_radius * std::sin(0.5 * (pitch - s.belts.span));
+  if (apart >= min_clearance) return std::nullopt;
+  const double widest = pitch - 2.0 * std::asin(min_clearance / (2.0 * s.bore_radius));
+  return Problem{"stator.belts.span_deg",
+                 fmt::format("neighbouring conductor sectors are {} apart at the bore, closer than the minimum {}",
+                             mm(apart), mm(min_clearance)),
+                 fmt::format("a span at most {}", degrees(widest))};
+}
+
 std::optional<Problem> stator_problem(const mesh::StatorGeometry& s) {
   if (s.outer_radius <= s.bore_radius)
     return Problem{"stator.outer_radius",
                    fmt::format("the outer radius is not larger than the bore radius ({})", mm(s.bore_radius)),
                    fmt::format("an outer radius above {}", mm(s.bore_radius))};
+  if (s.kind == mesh::StatorKind::slotless) return belts_problem(s);
   if (s.kind == mesh::StatorKind::salient) {
     const mesh::PoleOutline o = mesh::pole_outline(s);
     if (auto p = pole_iron_problem(s, o)) return p;
@@ -220,7 +249,26 @@ std::optional<Problem> rotor_problem(const mesh::Geometry& g) {
     return Problem{"rotor.shaft_radius",
                    fmt::format("the shaft is as large as the rotor (outer radius {})", mm(r.outer_radius)),
                    fmt::format("a shaft radius below {}", mm(r.outer_radius))};
+  // The sleeve lies on the iron: some iron must remain between it and the shaft (or the axis).
+  if (iron && r.sleeve_thickness > 0.0 && r.sleeve_thickness >= r.outer_radius - r.shaft_radius)
+    return Problem{"rotor.sleeve_thickness",
+                   r.shaft_radius > 0.0
+                       ? fmt::format("the sleeve reaches the shaft (rotor radius {}, shaft radius {})",
+                                     mm(r.outer_radius), mm(r.shaft_radius))
+                       : fmt::format("the sleeve fills the whole rotor (radius {})", mm(r.outer_radius)),
+                   fmt::format("a sleeve thickness below {}", mm(r.outer_radius - r.shaft_radius))};
   return std::nullopt;
+}
+
+/// Air round the stator must reach beyond it: A = 0 on a circle that cuts the iron would be wrong.
+std::optional<Problem> boundary_problem(const mesh::StatorGeometry& s) {
+  if (s.boundary_radius <= 0.0 || s.boundary_radius >= s.outer_radius + min_outer_air) return std::nullopt;
+  return Problem{"stator.boundary_radius",
+                 fmt::format("less than {} beyond the stator's outer radius ({})", mm(min_outer_air),
+                             mm(s.outer_radius)),
+                 fmt::format("a boundary radius of at least {}, or no such key for A = 0 on the stator's outer "
+                             "surface",
+                             mm(s.outer_radius + min_outer_air))};
 }
 
 std::string divisors(int n) {
@@ -240,6 +288,7 @@ double tooth_width(double r, double slot_width, int n_slots) {
 
 std::optional<Problem> geometry_problem(const mesh::Geometry& geometry) {
   if (auto p = stator_problem(geometry.stator)) return p;
+  if (auto p = boundary_problem(geometry.stator)) return p;
   return rotor_problem(geometry);
 }
 
@@ -287,7 +336,8 @@ std::optional<Problem> paths_problem(const mesh::WindingSpec& w, int n_slots, bo
 std::optional<Problem> winding_problem(const mesh::WindingSpec& w, const mesh::StatorGeometry& stator) {
   const int n_slots = stator.n_slots;
   const bool table = !w.explicit_sides.empty();
-  const bool slotted = stator.kind == mesh::StatorKind::slotted;
+  // The conductor sectors of a slotless stator are slots to the winding, pitch rules and all.
+  const bool slotted = stator.kind != mesh::StatorKind::salient;
   const bool integral = slotted && n_slots % (w.n_poles * w.n_phases) == 0;
   if (!table && slotted)
     if (auto p = pitch_problem(w, n_slots, integral)) return p;

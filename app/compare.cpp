@@ -54,6 +54,9 @@ void print_table(std::ostream& out, const std::vector<Row>& rows) {
 void compare_cases(const std::vector<Case>& cases, const fs::path& out_dir, int field_files, std::ostream& out) {
   std::set<std::string> names;
   for (const auto& c : cases)
+    if (c.study.kind != post::StudyKind::phase_angles)
+      throw InputError(fmt::format("{}: compare tabulates phase-angle studies; this case studies eddy currents", c.path));
+  for (const auto& c : cases)
     if (!names.insert(stem(c)).second)
       throw InputError(fmt::format("{}: two cases are named '{}'; their result folders would clash", c.path, stem(c)));
   std::vector<Row> rows;

@@ -12,6 +12,7 @@
 
 #include "app/case_reader.hpp"
 #include "app/compare.hpp"
+#include "app/eddy_run.hpp"
 #include "app/input_error.hpp"
 #include "app/run_case.hpp"
 #include "app/winding_report.hpp"
@@ -111,7 +112,10 @@ int main(int argc, char** argv) {
       tf::app::mesh_case(c, out_dir.empty() ? default_out_dir(case_path) / "mesh" : fs::path(out_dir), std::cout);
     } else {
       tf::app::RunOptions options{out_dir.empty() ? default_out_dir(case_path) : fs::path(out_dir), all_steps};
-      tf::app::run_case(c, options, std::cout);
+      if (c.study.kind == tf::post::StudyKind::eddy_currents)
+        tf::app::run_eddy_case(c, options, std::cout);
+      else
+        tf::app::run_case(c, options, std::cout);
     }
   });
 }

@@ -28,14 +28,6 @@ using Clock = std::chrono::steady_clock;
 
 double seconds_since(Clock::time_point t) { return std::chrono::duration<double>(Clock::now() - t).count(); }
 
-void prepare_folder(const fs::path& dir) {
-  std::error_code ec;
-  fs::create_directories(dir, ec);
-  if (ec) throw post::OutputError("could not create the output folder " + dir.string() + ": " + ec.message());
-  // A summary left from an earlier run would mark a half-rewritten folder as complete.
-  fs::remove(dir / "summary.json", ec);
-}
-
 /// VTU files for the chosen steps and the .pvd collection that lists them; returns file names.
 std::vector<std::string> write_field_files(const fs::path& dir, const mesh::Mesh& m, const solver::PhaseFields& f,
                                            const post::StudyResult& r, const std::vector<int>& steps,
@@ -127,7 +119,7 @@ Headline run_case(const Case& c, const RunOptions& options, std::ostream& out) {
 
   t = Clock::now();
   const fs::path& dir = options.out_dir;
-  prepare_folder(dir);
+  post::prepare_result_folder(dir);
   post::write_steps_table(dir / "steps.csv", r, c.supply.frequency);
   post::write_gap_table(dir / "gap_field.csv", r);
   post::write_harmonics_table(dir / "harmonics.csv", r, c.winding.pole_pairs());

@@ -24,17 +24,31 @@ int rotor_sectors(int n_slots) {
   return n_slots;
 }
 
+/// The narrowest part of the stator that elements far from the gap must still resolve [m]: a slot;
+/// a salient pole's body or coil side; a slotless stator's winding annulus, the conductor sectors
+/// and the air between them at the bore, and its iron ring (but no finer than the air gap, so that
+/// a very thin ring does not make the whole mesh as fine as itself).
+double narrowest_part(const Geometry& g) {
+  const StatorGeometry& s = g.stator;
+  if (s.kind == StatorKind::salient) return std::min(s.poles.body_width, s.poles.coil_width);
+  if (s.kind == StatorKind::slotted) return s.slot.width;
+  const double pitch_angle = 2 * kPi / s.n_slots;
+  const double conductor = 2 * s.bore_radius * std::sin(0.5 * s.belts.span);
+  const double air = 2 * s.bore_radius * std::sin(0.5 * (pitch_angle - s.belts.span));
+  const double ring = std::max(s.outer_radius - s.belts.outer_radius, g.gap_length());
+  return std::min({s.belts.outer_radius - s.bore_radius, conductor, air, ring});
+}
+
 }  // namespace
 
 ElementSizes element_sizes(const Geometry& g, const MeshControls& c) {
   const StatorGeometry& s = g.stator;
   const double across_gap = 4.0 * std::max(1.0, c.fineness);
-  // Far from the gap, elements still resolve the narrowest part: a slot, or a pole's body and coil
-  // sides. The pitch is the slot pitch, or the pole pitch of a salient-pole stator, at the bore.
+  // Far from the gap, elements still resolve the narrowest part. The pitch is the slot pitch (the
+  // pole pitch of a salient-pole stator, the belt pitch of a slotless one) at the bore.
   const double pitch = 2 * kPi * s.bore_radius / s.n_slots;
-  const double narrowest =
-      s.kind == StatorKind::salient ? std::min(s.poles.body_width, s.poles.coil_width) : s.slot.width;
-  const double largest = std::min({pitch / 3.0, narrowest / 2.0, (s.outer_radius - s.bore_radius) / 6.0}) / c.fineness;
+  const double largest =
+      std::min({pitch / 3.0, narrowest_part(g) / 2.0, (s.outer_radius - s.bore_radius) / 6.0}) / c.fineness;
   return {g.gap_length() / across_gap, largest, 0.25};
 }
 
@@ -42,10 +56,19 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
   const ElementSizes h = element_sizes(g, c);
   const double r_slide = g.mid_gap_radius();
   const double half_gap = 0.5 * g.gap_length();
+  const double r_stator = g.stator.outer_radius;
+  const double half_pitch_angle = kPi / g.stator.n_slots;
   // Elements are smallest in the gap and grow with the distance from it, up to the largest size.
-  const detail::SizeRule size = [h, r_slide, half_gap](double x, double y) {
-    const double away = std::max(0.0, std::abs(std::hypot(x, y) - r_slide) - half_gap);
-    return std::min(h.largest, h.gap + h.grading * away);
+  // In the air outside the stator the field is smooth and fades, so there they keep growing
+  // (about as fast as the radius once far out: a boundary at 1 m costs a few rings of elements),
+  // but stay below half the width of the sector, which keeps its narrow wedges well shaped.
+  const detail::SizeRule size = [=](double x, double y) {
+    const double r = std::hypot(x, y);
+    const double away = std::max(0.0, std::abs(r - r_slide) - half_gap);
+    const double cap = r <= r_stator ? h.largest
+                                     : std::max(h.largest, std::min(h.largest + h.grading * (r - r_stator),
+                                                                    half_pitch_angle * r));
+    return std::min(cap, h.gap + h.grading * away);
   };
   const int n_slots = g.stator.n_slots;
   int per_slot = std::max(2, static_cast<int>(std::ceil(2 * kPi * r_slide / n_slots / h.gap)));

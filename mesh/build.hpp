@@ -9,7 +9,8 @@ namespace tf::mesh {
 /// Element sizes [m] that follow from the geometry and the fineness knob.
 struct ElementSizes {
   double gap;       ///< in the air gap: at least four elements across it
-  double largest;   ///< far from the gap, in the yoke and the rotor
+  double largest;   ///< far from the gap, in the yoke and the rotor; beyond the stator, in outer
+                    ///< air, elements grow further with the distance
   double grading;   ///< growth of the size per metre of distance from the gap [-]
 };
 ElementSizes element_sizes(const Geometry& g, const MeshControls& c);

@@ -49,7 +49,8 @@ struct Mesh {
   Eigen::MatrixX3i triangles;       ///< #triangles by 3 node indices, counter-clockwise
   Eigen::VectorXi triangle_region;  ///< #triangles, index into regions
   std::vector<Region> regions;
-  std::vector<int> outer_nodes;     ///< nodes on the stator's outer surface, where A = 0
+  std::vector<int> outer_nodes;     ///< nodes on the outermost circle, where A = 0: the stator's outer
+                                    ///< surface, or the boundary radius when air surrounds the stator
   SlidingCircle sliding;
   double gap_inner_radius = 0.0;    ///< rotor surface [m]
   double gap_outer_radius = 0.0;    ///< stator bore [m]

@@ -51,33 +51,38 @@ void join_cuts(const Copies& c, NodeSets& sets, double tolerance) {
   }
 }
 
-/// Names of per-slot regions: "slot_07_layer_2", "slot_07_opening", or "pole_03_coil_1" on a
-/// salient-pole stator. Numbers are padded to the width of the largest, so names sort in order.
+/// Names of per-slot regions: "slot_07_layer_2", "slot_07_opening", "pole_03_coil_1" on a
+/// salient-pole stator, "sector_3_layer_1" for a conductor sector of a slotless one. Numbers are
+/// padded to the width of the largest, so names sort in order.
 std::string slot_region_name(StatorKind stator, int slot, int n_slots, const PieceKind& kind) {
   const int digits = static_cast<int>(std::to_string(n_slots).size());
   std::string number = std::to_string(slot);
   number.insert(0, std::max(0, digits - static_cast<int>(number.size())), '0');
   if (stator == StatorKind::salient) return "pole_" + number + "_coil_" + std::to_string(kind.layer);
+  if (stator == StatorKind::slotless) return "sector_" + number + "_layer_" + std::to_string(kind.layer);
   if (kind.kind == RegionKind::coil) return "slot_" + number + "_layer_" + std::to_string(kind.layer);
   return "slot_" + number + "_opening";
 }
 
-std::string region_name(const PieceKind& kind, bool rotor_side) {
+std::string region_name(StatorKind stator, const PieceKind& kind, bool rotor_side) {
   switch (kind.kind) {
     case RegionKind::stator_iron: return "stator_iron";
     case RegionKind::rotor_iron: return "rotor_iron";
     case RegionKind::shaft: return "shaft";
+    case RegionKind::rotor_sleeve: return "rotor_sleeve";
     case RegionKind::bore_air: return "bore_air";
+    case RegionKind::outer_air: return "outer_air";
     case RegionKind::gap: return rotor_side ? "gap_rotor_side" : "gap_stator_side";
-    // Only salient-pole stators have shared slot air: the air between two poles belongs to both.
-    case RegionKind::slot_air: return "interpolar_air";
+    // Shared slot air belongs to two neighbours: the air between two salient poles, or between two
+    // conductor sectors of a slotless stator.
+    case RegionKind::slot_air: return stator == StatorKind::slotless ? "winding_air" : "interpolar_air";
     default: return "?";
   }
 }
 
-/// Builds the region table as triangles are added. Coil sides are numbered per copy (slot or
-/// pole k, as the winding finds them); so are slot openings, while the air between salient
-/// poles, which no single pole owns, is one region.
+/// Builds the region table as triangles are added. Coil sides are numbered per copy (slot, pole
+/// or conductor sector k, as the winding finds them); so are slot openings, while the air between
+/// salient poles or conductor sectors, which no single copy owns, is one region.
 struct RegionTable {
   std::vector<Region>& regions;
   StatorKind stator;
@@ -86,7 +91,7 @@ struct RegionTable {
     const bool per_slot = kind.kind == RegionKind::coil ||
                           (kind.kind == RegionKind::slot_air && stator == StatorKind::slotted);
     const std::string name =
-        per_slot ? slot_region_name(stator, slot, n_slots, kind) : region_name(kind, rotor_side);
+        per_slot ? slot_region_name(stator, slot, n_slots, kind) : region_name(stator, kind, rotor_side);
     const auto [it, added] = by_name.emplace(name, static_cast<int>(regions.size()));
     if (added) regions.push_back({name, kind.kind, per_slot ? slot : 0, kind.kind == RegionKind::coil ? kind.layer : 0});
     return it->second;

@@ -169,10 +169,15 @@ SectorMesh with_context(const char* what, Build build) {
 }  // namespace
 
 SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n_sliding_segments, const SizeRule& size) {
-  const bool salient = g.stator.kind == StatorKind::salient;
-  return with_context(salient ? "stator pole pitch" : "stator slot pitch", [&] {
+  const StatorKind kind = g.stator.kind;
+  const char* what = kind == StatorKind::salient    ? "stator pole pitch"
+                     : kind == StatorKind::slotless ? "stator belt pitch"
+                                                    : "stator slot pitch";
+  return with_context(what, [&] {
     const double a = std::numbers::pi / g.stator.n_slots;
-    const SectorFrame f{-a, 2 * a, g.mid_gap_radius(), g.stator.outer_radius, 1e-6 * g.stator.outer_radius};
+    // A = 0 on the outermost circle: the stator's outer surface, or the boundary beyond it.
+    const double outer = std::max(g.stator.outer_radius, g.stator.boundary_radius);
+    const SectorFrame f{-a, 2 * a, g.mid_gap_radius(), outer, 1e-6 * outer};
     return mesh_pieces(build_stator_pieces(g, layers), f, n_sliding_segments, size);
   });
 }

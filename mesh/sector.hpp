@@ -30,14 +30,15 @@ struct SectorMesh {
   std::vector<int> start_cut;         ///< nodes on the cut at start_angle, by increasing radius
   std::vector<int> end_cut;           ///< nodes on the cut at start_angle + span, by increasing radius
   std::vector<int> sliding;           ///< nodes on the sliding arc, by increasing angle
-  std::vector<int> outer;             ///< nodes on the outer arc (stator only)
+  std::vector<int> outer;             ///< nodes on the outer arc, where A = 0 (stator only)
 };
 
 /// Element size [m] at a point (x, y) [m].
 using SizeRule = std::function<double(double x, double y)>;
 
-/// The stator slot pitch centred on slot 1 (on the +x axis), or the pole pitch centred on pole 1
-/// of a salient-pole stator, from the sliding circle to the outer surface, with n_sliding_segments
+/// The stator slot pitch centred on slot 1 (on the +x axis), the pole pitch centred on pole 1 of a
+/// salient-pole stator or the belt pitch centred on conductor sector 1 of a slotless one, from the
+/// sliding circle to the outer surface (or to the boundary radius beyond it), with n_sliding_segments
 /// equal segments on the sliding arc. Sectors of half a turn (two poles, two rotor sectors) need
 /// an even number of segments: their arcs are drawn in two halves.
 SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n_sliding_segments, const SizeRule& size);

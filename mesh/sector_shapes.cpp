@@ -10,6 +10,7 @@
 
 #include "mesh/salient_shapes.hpp"
 #include "mesh/sector_shapes.hpp"
+#include "mesh/slotless_shapes.hpp"
 
 namespace tf::mesh::detail {
 namespace {
@@ -130,8 +131,10 @@ std::vector<Piece> fragment_domain(int domain, const std::vector<Piece>& shapes,
   return pieces;
 }
 
-std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& layers) {
-  if (g.stator.kind == StatorKind::salient) return build_salient_pieces(g);
+namespace {
+
+/// The slot pitch centred on slot 1: iron with the slot's pieces cut out, and the gap band.
+std::vector<Piece> build_slotted_pieces(const Geometry& g, const SlotLayers& layers) {
   const StatorGeometry& s = g.stator;
   const double a = std::numbers::pi / s.n_slots;
   const int stator = add_annular_sector(s.bore_radius, s.outer_radius, -a, a);
@@ -141,17 +144,36 @@ std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& laye
   return fragment_pieces(pieces, {gap, {RegionKind::gap, 0}});
 }
 
+}  // namespace
+
+std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& layers) {
+  const StatorGeometry& s = g.stator;
+  std::vector<Piece> pieces = s.kind == StatorKind::salient    ? build_salient_pieces(g)
+                              : s.kind == StatorKind::slotless ? build_slotless_pieces(g, layers)
+                                                               : build_slotted_pieces(g, layers);
+  if (s.boundary_radius <= s.outer_radius) return pieces;
+  // A yoke that does not keep the field in (an air-cored or thin one) needs air round the stator
+  // out to where A = 0 is a fair boundary.
+  const double a = std::numbers::pi / s.n_slots;
+  const int ring = add_annular_sector(s.outer_radius, s.boundary_radius, -a, a);
+  return fragment_pieces(pieces, {ring, {RegionKind::outer_air, 0}});
+}
+
 std::vector<Piece> build_rotor_pieces(const Geometry& g, double a0, double a1) {
   const RotorGeometry& r = g.rotor;
   std::vector<Piece> rings;
+  // An iron rotor's iron ends where its sleeve (if any) begins; a shaft may sit inside the iron.
+  const double iron_outer = r.outer_radius - r.sleeve_thickness;
   if (r.kind == RotorKind::none) {
     rings.push_back({add_annular_sector(0.0, r.outer_radius, a0, a1), {RegionKind::bore_air, 0}});
   } else if (r.shaft_radius > 0.0) {
     rings.push_back({add_annular_sector(0.0, r.shaft_radius, a0, a1), {RegionKind::shaft, 0}});
-    rings.push_back({add_annular_sector(r.shaft_radius, r.outer_radius, a0, a1), {RegionKind::rotor_iron, 0}});
+    rings.push_back({add_annular_sector(r.shaft_radius, iron_outer, a0, a1), {RegionKind::rotor_iron, 0}});
   } else {
-    rings.push_back({add_annular_sector(0.0, r.outer_radius, a0, a1), {RegionKind::rotor_iron, 0}});
+    rings.push_back({add_annular_sector(0.0, iron_outer, a0, a1), {RegionKind::rotor_iron, 0}});
   }
+  if (r.kind == RotorKind::iron && r.sleeve_thickness > 0.0)
+    rings.push_back({add_annular_sector(iron_outer, r.outer_radius, a0, a1), {RegionKind::rotor_sleeve, 0}});
   const Piece gap{add_annular_sector(r.outer_radius, g.mid_gap_radius(), a0, a1), {RegionKind::gap, 0}};
   return fragment_pieces(rings, gap);
 }

@@ -24,8 +24,10 @@ int add_annular_sector(double r_in, double r_out, double a0, double a1);
 /// the domain are removed from the model.
 std::vector<Piece> fragment_domain(int domain, const std::vector<Piece>& shapes, PieceKind rest);
 
-/// The slot pitch (or, for a salient-pole stator, the pole pitch) centred on the +x axis, from the
-/// sliding circle to the outer radius. `layers` applies to slotted stators only.
+/// The slot pitch (for a salient-pole stator the pole pitch, for a slotless one the belt pitch)
+/// centred on the +x axis, from the sliding circle to the outer radius, and on to the boundary
+/// radius through air (outer_air) when that is larger. `layers` applies to slotted and slotless
+/// stators.
 std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& layers);
 
 /// The rotor sector between angles a0 and a1, from the centre to the sliding circle.

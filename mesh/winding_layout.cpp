@@ -150,7 +150,7 @@ std::vector<CoilSide> table_sides(const WindingSpec& spec, const StatorGeometry&
 }
 
 bool integral_slot(const WindingSpec& spec, const StatorGeometry& st) {
-  return st.kind == StatorKind::slotted && st.n_slots % (spec.n_poles * spec.n_phases) == 0;
+  return st.kind != StatorKind::salient && st.n_slots % (spec.n_poles * spec.n_phases) == 0;
 }
 
 /// The layout by the rule that applies; sides are empty when the star finds no balanced layout.

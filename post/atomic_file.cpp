@@ -9,6 +9,13 @@ std::filesystem::path temporary_name(const std::filesystem::path& path) {
   return path.parent_path() / ("." + path.filename().string() + ".partial");
 }
 
+void prepare_result_folder(const std::filesystem::path& dir) {
+  std::error_code ec;
+  std::filesystem::create_directories(dir, ec);
+  if (ec) throw OutputError("could not create the output folder " + dir.string() + ": " + ec.message());
+  std::filesystem::remove(dir / "summary.json", ec);
+}
+
 void commit_file(const std::filesystem::path& temporary, const std::filesystem::path& path) {
   std::error_code ec;
   std::filesystem::rename(temporary, path, ec);

@@ -20,6 +20,10 @@ void write_atomically(const std::filesystem::path& path, const std::function<voi
 /// Renames a finished temporary file into place; throws OutputError.
 void commit_file(const std::filesystem::path& temporary, const std::filesystem::path& path);
 
+/// Creates the result folder and removes a summary.json left from an earlier run, which would
+/// otherwise mark a half-rewritten folder as complete. Throws OutputError.
+void prepare_result_folder(const std::filesystem::path& dir);
+
 /// The temporary name used while `path` is being written.
 std::filesystem::path temporary_name(const std::filesystem::path& path);
 

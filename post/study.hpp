@@ -16,7 +16,14 @@
 
 namespace tf::post {
 
+enum class StudyKind {
+  phase_angles,   ///< magnetostatic: the currents advance through one period in K steps
+  eddy_currents,  ///< time-harmonic with eddy currents, one solution per rotor speed
+};
+
 struct StudyPlan {
+  StudyKind kind = StudyKind::phase_angles;
+  std::vector<double> rotor_speeds;  ///< eddy currents: mechanical speeds [rad/s], counter-clockwise
   int n_steps = 36;        ///< steps over one electrical period, ωt_k = 360°·k/K
   int n_field_files = 36;  ///< steps that get a VTU file, evenly spaced
   int n_gap_points = 720;  ///< samples on the mid-gap circle

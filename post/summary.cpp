@@ -55,10 +55,6 @@ json winding_summary(const mesh::Winding& w) {
 
 void write_summary(const std::filesystem::path& path, const RunRecord& r) {
   json j;
-  j["program"] = "turnfield";
-  j["version"] = r.version;
-  j["caution"] = kSafetyCaution;
-  j["inputs"] = json::parse(r.inputs_json);
   j["mesh"] = {{"nodes", r.mesh->n_nodes()},
                {"triangles", r.mesh->n_triangles()},
                {"regions", r.mesh->regions.size()},
@@ -71,10 +67,20 @@ void write_summary(const std::filesystem::path& path, const RunRecord& r) {
                  {"matrix_nonzeros", r.stats.n_nonzeros},
                  {"factorizations", 1},
                  {"method", "CHOLMOD supernodal Cholesky; the m unit phase fields solved as one block, steps superposed"}};
-  json seconds = json::object();
-  for (const auto& [stage, s] : r.seconds) seconds[stage] = s;
-  j["seconds"] = seconds;
-  j["files"] = r.files;
+  write_summary_document(path, j.dump(), r.version, r.inputs_json, r.seconds, r.files);
+}
+
+void write_summary_document(const std::filesystem::path& path, const std::string& body_json, const std::string& version,
+                            const std::string& inputs_json,
+                            const std::vector<std::pair<std::string, double>>& seconds,
+                            const std::vector<std::string>& files) {
+  json j = {{"program", "turnfield"}, {"version", version}, {"caution", kSafetyCaution},
+            {"inputs", json::parse(inputs_json)}};
+  j.update(json::parse(body_json));
+  json stages = json::object();
+  for (const auto& [stage, s] : seconds) stages[stage] = s;
+  j["seconds"] = stages;
+  j["files"] = files;
   write_atomically(path, [&](std::ostream& out) { out << j.dump(2) << '\n'; });
 }
 

@@ -34,4 +34,11 @@ struct RunRecord {
 
 void write_summary(const std::filesystem::path& path, const RunRecord& r);
 
+/// Writes a summary JSON document (given as text) with the parts every summary has: program,
+/// version, caution, inputs, stage times and files.
+void write_summary_document(const std::filesystem::path& path, const std::string& body_json, const std::string& version,
+                            const std::string& inputs_json,
+                            const std::vector<std::pair<std::string, double>>& seconds,
+                            const std::vector<std::string>& files);
+
 }  // namespace tf::post

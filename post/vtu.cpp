@@ -13,6 +13,7 @@
 #include <vtkXMLUnstructuredGridWriter.h>
 
 #include "post/atomic_file.hpp"
+#include "post/eddy_output.hpp"
 #include "post/flux_density.hpp"
 
 namespace tf::post {
@@ -97,6 +98,61 @@ void write_collection(const std::filesystem::path& path, const std::vector<Colle
       out << "    <DataSet timestep=\"" << e.time << "\" part=\"0\" file=\"" << e.filename << "\"/>\n";
     out << "  </Collection>\n</VTKFile>\n";
   });
+}
+
+}  // namespace tf::post
+
+namespace tf::post {
+namespace {
+
+vtkNew<vtkDoubleArray> node_array(const char* name, const Eigen::VectorXd& values) {
+  vtkNew<vtkDoubleArray> a;
+  a->SetName(name);
+  a->SetNumberOfValues(values.size());
+  for (Eigen::Index i = 0; i < values.size(); ++i) a->SetValue(i, values(i));
+  return a;
+}
+
+}  // namespace
+
+void write_eddy_vtu(const std::filesystem::path& path, const mesh::Mesh& m, const Eigen::VectorXcd& a,
+                    const SpeedInputs& in, double rotor_speed) {
+  auto grid = grid_of(m);
+  grid->GetPointData()->AddArray(node_array("A_z_real_Wb_per_m", a.real()));
+  grid->GetPointData()->AddArray(node_array("A_z_imag_Wb_per_m", a.imag()));
+  const Eigen::MatrixX2d b_re = flux_density(m, a.real()), b_im = flux_density(m, a.imag());
+  const double omega = 2 * 3.14159265358979323846 * in.frequency;
+  vtkNew<vtkFloatArray> b_peak, j_peak;
+  b_peak->SetName("B_peak_T");
+  j_peak->SetName("J_induced_peak_A_per_m2");
+  b_peak->SetNumberOfValues(m.n_triangles());
+  j_peak->SetNumberOfValues(m.n_triangles());
+  for (int t = 0; t < m.n_triangles(); ++t) {
+    // Peak over a period of |Re(B e^{j w t})|: the major semi-axis of the ellipse B traces.
+    const std::complex<double> bx(b_re(t, 0), b_im(t, 0)), by(b_re(t, 1), b_im(t, 1));
+    const double mean = 0.5 * (std::norm(bx) + std::norm(by)), swing = 0.5 * std::abs(bx * bx + by * by);
+    b_peak->SetValue(t, static_cast<float>(std::sqrt(mean + swing)));
+    // |J| = sigma |j w A + w_r dA/dtheta| at the centroid.
+    const int r = m.triangle_region(t);
+    double j = 0.0;
+    if (in.sigma[r] > 0.0) {
+      std::complex<double> mean_a = 0.0;
+      Eigen::Vector2d c = Eigen::Vector2d::Zero();
+      for (int i = 0; i < 3; ++i) {
+        mean_a += a(m.triangles(t, i)) / 3.0;
+        c += m.nodes.row(m.triangles(t, i)).transpose() / 3.0;
+      }
+      const std::complex<double> grad_x(-b_re(t, 1), -b_im(t, 1)), grad_y(b_re(t, 0), b_im(t, 0));
+      const std::complex<double> dtheta = c(0) * grad_y - c(1) * grad_x;
+      const double speed = in.on_rotor[r] ? rotor_speed : 0.0;
+      j = in.sigma[r] * std::abs(std::complex<double>(0.0, omega) * mean_a + speed * dtheta);
+    }
+    j_peak->SetValue(t, static_cast<float>(j));
+  }
+  grid->GetCellData()->AddArray(b_peak);
+  grid->GetCellData()->AddArray(j_peak);
+  grid->GetCellData()->SetActiveScalars("B_peak_T");
+  write_grid(path, grid);
 }
 
 }  // namespace tf::post

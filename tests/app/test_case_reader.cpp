@@ -3,6 +3,7 @@
 
 #include <doctest/doctest.h>
 
+#include <cmath>
 #include <filesystem>
 #include <fstream>
 #include <numbers>
@@ -110,7 +111,8 @@ const std::vector<BadFile> bad_files = {
     {"bad_field_files.toml", 47, {"[study] field_files = 80", "more field files than steps (72)", "expected at most 72"}},
     {"bad_stator_kind_value.toml",
      10,
-     {"[stator] kind = \"salliant\"", "did you mean \"salient\"?", "expected \"slotted\" or \"salient\""}},
+     {"[stator] kind = \"salliant\"", "did you mean \"salient\"?",
+      "expected \"slotted\", \"salient\" or \"slotless\""}},
     {"bad_salient_with_slots.toml",
      13,
      {"[stator] slots = 4", "not used by salient-pole stators", "counted by [stator.poles] count"}},
@@ -159,6 +161,39 @@ const std::vector<BadFile> bad_files = {
     {"bad_split_phase_three_phases.toml", 43, {"[supply] kind = \"split_phase\"", "[winding] phases = 3", "expected phases = 2"}},
     {"bad_states_row.toml", 45, {"[supply] states[1]", "a row of 3 values", "rows of 2 numbers"}},
     {"bad_states_with_steps.toml", 51, {"[study] steps = 8", "not used with a stepped DC supply"}},
+    {"bad_slotless_with_slots.toml",
+     11,
+     {"[stator] slots = 6", "not used by slotless stators", "counted by [stator.belts] count"}},
+    {"bad_slotless_missing_belts.toml", 9, {"missing table [stator.belts]", "count, span_deg, outer_radius"}},
+    {"bad_belts_on_slotted.toml", 19, {"[stator.belts]: not used by slotted stators", "kind = \"slotless\""}},
+    {"bad_slotless_span_range.toml",
+     17,
+     {"[stator.belts] span_deg = 60.0", "out of range", "expected a number in degrees, > 0 and < 60"}},
+    {"bad_slotless_sectors_touch.toml",
+     17,
+     {"[stator.belts] span_deg = 59.5", "neighbouring conductor sectors are 0.28 mm apart at the bore",
+      "minimum 0.50 mm", "expected a span at most 59.10 degrees"}},
+    {"bad_slotless_no_iron_ring.toml",
+     18,
+     {"[stator.belts] outer_radius = 0.057", "leave no iron ring inside the stator's outer radius 57.00 mm",
+      "expected an outer radius above 32.00 mm and below 57.00 mm"}},
+    {"bad_slotless_belts_in_bore.toml",
+     18,
+     {"[stator.belts] outer_radius = 0.03", "end inside the bore (bore radius 32.00 mm)"}},
+    {"bad_boundary_inside.toml",
+     13,
+     {"[stator] boundary_radius = 0.0575", "less than 1.00 mm beyond the stator's outer radius (57.00 mm)",
+      "expected a boundary radius of at least 58.00 mm"}},
+    {"bad_sleeve_too_thick.toml",
+     24,
+     {"[rotor] sleeve_thickness = 0.026", "the sleeve reaches the shaft", "expected a sleeve thickness below 25.00 mm"}},
+    {"bad_sleeve_without_rotor.toml", 23, {"[rotor] sleeve_thickness = 0.01", "not used without a rotor"}},
+    {"bad_sleeve_material_without_sleeve.toml",
+     32,
+     {"[materials.rotor_sleeve]", "not used, since the rotor has no sleeve", "[rotor] sleeve_thickness"}},
+    {"bad_negative_conductivity.toml",
+     31,
+     {"[materials.rotor_iron] conductivity", "out of range", "expected a number in S/m, >= 0"}},
 };
 
 }  // namespace
@@ -252,6 +287,44 @@ TEST_CASE("the salient-pole case reads its poles in SI units, the pole count sta
   // A stator without `kind` is slotted.
   CHECK(read_case(source_dir + "/cases/stator36_three_phase.toml").geometry.stator.kind ==
         tf::mesh::StatorKind::slotted);
+}
+
+TEST_CASE("the TEAM 30a case reads its slotless stator, boundary, sleeve and conductivities in SI units") {
+  // Data: K. R. Davey, TEAM Problem 30a (../shared/CHECKS.md §1).
+  const auto c = read_case(source_dir + "/cases/team30a_three_phase.toml");
+  const auto& s = c.geometry.stator;
+  CHECK(s.kind == tf::mesh::StatorKind::slotless);
+  CHECK(s.bore_radius == 0.032);
+  CHECK(s.outer_radius == 0.057);
+  CHECK(s.boundary_radius == 1.0);
+  CHECK(s.n_slots == 6);  // the conductor sectors are the winding's slots
+  CHECK(s.belts.span == doctest::Approx(std::numbers::pi / 4).epsilon(1e-15).scale(0));  // 45°
+  CHECK(s.belts.outer_radius == 0.052);
+  CHECK(s.slot.width == 0.0);  // no slot is read for a slotless stator
+  const auto& r = c.geometry.rotor;
+  CHECK(r.outer_radius == 0.030);
+  CHECK(r.sleeve_thickness == 0.010);
+  CHECK(r.shaft_radius == 0.0);
+  const auto& m = c.materials;
+  CHECK(m.stator_iron_mu_r == 30.0);
+  CHECK(m.stator_iron_sigma == 0.0);
+  CHECK(m.rotor_iron_mu_r == 30.0);
+  CHECK(m.rotor_iron_sigma == 1.6e6);
+  CHECK(m.sleeve_mu_r == 1.0);
+  CHECK(m.sleeve_sigma == 3.72e7);
+  CHECK(m.shaft_sigma == 0.0);  // absent from the file
+  CHECK(c.winding.coil_pitch == 3);
+  CHECK(c.winding.n_layers == 1);
+  // 3.1e6 A/m² rms, peak, over a 45° sector of the 32-52 mm annulus, one turn.
+  const double area = std::numbers::pi * (0.052 * 0.052 - 0.032 * 0.032) / 8;
+  CHECK(c.supply.peak_current == doctest::Approx(3.1e6 * std::sqrt(2.0) * area).epsilon(1e-6).scale(0));
+  CHECK(c.supply.frequency == 60.0);
+  // Where a slotted case leaves them out: no boundary beyond the stator, no sleeve, no conductivity.
+  const auto plain = read_case(source_dir + "/cases/stator36_three_phase.toml");
+  CHECK(plain.geometry.stator.boundary_radius == 0.0);
+  CHECK(plain.geometry.rotor.sleeve_thickness == 0.0);
+  CHECK(plain.materials.rotor_iron_sigma == 0.0);
+  CHECK(plain.materials.stator_iron_sigma == 0.0);
 }
 
 TEST_CASE("every bad case file is refused at the right line, naming key, problem and expectation") {

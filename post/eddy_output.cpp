@@ -1,0 +1,77 @@
+#include "post/eddy_output.hpp"
+
+#include <cmath>
+#include <numbers>
+
+#include <fmt/format.h>
+#include <nlohmann/json.hpp>
+
+#include "post/atomic_file.hpp"
+#include "post/summary.hpp"
+#include "post/tables.hpp"
+#include "post/vtu.hpp"
+
+namespace tf::post {
+namespace {
+
+using nlohmann::json;
+
+double rpm(double rad_s) { return rad_s * 30.0 / std::numbers::pi; }
+
+json headline(const std::vector<SpeedResult>& rows) {
+  const SpeedResult* peak = &rows.front();
+  const SpeedResult* standstill = nullptr;
+  for (const auto& r : rows) {
+    if (std::abs(r.torque) > std::abs(peak->torque)) peak = &r;
+    if (r.rotor_speed == 0.0) standstill = &r;
+  }
+  json j = {{"peak_torque_N_m", peak->torque}, {"peak_torque_speed_rad_s", peak->rotor_speed}};
+  if (standstill) j["locked_rotor_torque_N_m"] = standstill->torque;
+  return j;
+}
+
+}  // namespace
+
+void write_torque_speed(const std::filesystem::path& path, const std::vector<SpeedResult>& rows, int) {
+  write_atomically(path, [&](std::ostream& o) {
+    o << "speed_rad_s,speed_rpm,slip,torque_N_m,torque_lorentz_N_m,rotor_loss_W,rotor_loss_balance_W,stator_loss_W,"
+         "input_power_W,mechanical_power_W";
+    const std::size_t m = rows.front().emf_rms.size();
+    for (std::size_t k = 0; k < m; ++k) o << ",emf_" << phase_name(static_cast<int>(k)) << "_V_rms";
+    o << '\n';
+    for (const auto& r : rows) {
+      o << fmt::format("{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g}", r.rotor_speed,
+                       rpm(r.rotor_speed), r.slip, r.torque, r.torque_lorentz, r.rotor_loss, r.rotor_loss_balance,
+                       r.stator_loss, r.input_power, r.torque * r.rotor_speed);
+      for (double e : r.emf_rms) o << fmt::format(",{:.10g}", e);
+      o << '\n';
+    }
+  });
+}
+
+void write_eddy_summary(const std::filesystem::path& path, const EddyRecord& r) {
+  json speeds = json::array();
+  for (const auto& s : *r.rows) {
+    const double balance = s.input_power - s.rotor_loss - s.stator_loss - s.torque_lorentz * s.rotor_speed;
+    speeds.push_back({{"speed_rad_s", s.rotor_speed}, {"slip", s.slip}, {"torque_N_m", s.torque},
+                      {"torque_lorentz_N_m", s.torque_lorentz}, {"rotor_loss_W", s.rotor_loss},
+                      {"rotor_loss_balance_W", s.rotor_loss_balance}, {"region_loss_W", s.region_loss},
+                      {"stator_loss_W", s.stator_loss}, {"input_power_W", s.input_power},
+                      {"power_balance_relative", s.input_power != 0.0 ? balance / s.input_power : 0.0},
+                      {"emf_V_rms", s.emf_rms}});
+  }
+  json j;
+  j["mesh"] = {{"nodes", r.mesh->n_nodes()}, {"triangles", r.mesh->n_triangles()}, {"regions", r.mesh->regions.size()}};
+  j["eddy_currents"] = {{"speeds", speeds},
+                        {"headline", headline(*r.rows)},
+                        {"torque_method", "Arkkio: Maxwell stress averaged over the whole gap band; "
+                                          "torque_lorentz from the induced currents, a cross-check"}};
+  j["solver"] = {{"unknowns", r.stats.n_dofs},
+                 {"method", "UMFPACK complex LU; one symbolic analysis, one factorization per speed"},
+                 {"analyse_s", r.stats.analyse_seconds},
+                 {"factorize_s", r.stats.factorize_seconds},
+                 {"solve_s", r.stats.solve_seconds}};
+  write_summary_document(path, j.dump(), r.version, r.inputs_json, r.seconds, r.files);
+}
+
+}  // namespace tf::post

@@ -1,0 +1,37 @@
+#pragma once
+// Files of an eddy-current study: torque_speed.csv, a VTU file per speed, summary.json.
+
+#include <filesystem>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include <Eigen/Core>
+
+#include "mesh/mesh.hpp"
+#include "mesh/winding.hpp"
+#include "post/eddy_quantities.hpp"
+#include "solver/eddy.hpp"
+
+namespace tf::post {
+
+/// torque_speed.csv: one row per rotor speed.
+void write_torque_speed(const std::filesystem::path& path, const std::vector<SpeedResult>& rows, int pole_pairs);
+
+/// One speed's field: A (real and imaginary parts of the peak phasor) at nodes; per triangle the
+/// peak |B| over a period, the peak induced current density |J| and region.
+void write_eddy_vtu(const std::filesystem::path& path, const mesh::Mesh& m, const Eigen::VectorXcd& a,
+                    const SpeedInputs& in, double rotor_speed);
+
+struct EddyRecord {
+  std::string version, inputs_json;
+  const mesh::Mesh* mesh = nullptr;
+  const mesh::Winding* winding = nullptr;
+  const std::vector<SpeedResult>* rows = nullptr;
+  solver::EddyStats stats;
+  std::vector<std::pair<std::string, double>> seconds;
+  std::vector<std::string> files;
+};
+void write_eddy_summary(const std::filesystem::path& path, const EddyRecord& r);
+
+}  // namespace tf::post

@@ -1,0 +1,126 @@
+#include "post/eddy_quantities.hpp"
+
+#include <cmath>
+#include <numbers>
+
+#include "solver/flux_linkage.hpp"
+#include "solver/p1.hpp"
+
+namespace tf::post {
+namespace {
+
+using Complex = std::complex<double>;
+constexpr double kMu0 = 4e-7 * std::numbers::pi;
+
+struct Element {
+  solver::TriangleXY xy;
+  Eigen::Vector3cd a;
+  Eigen::Vector2cd grad;  ///< (dA/dx, dA/dy), constant on a first-order triangle
+  double area;
+};
+
+Element element(const mesh::Mesh& m, const Eigen::VectorXcd& a, int t) {
+  Element e;
+  for (int i = 0; i < 3; ++i) {
+    e.xy.row(i) = m.nodes.row(m.triangles(t, i));
+    e.a(i) = a(m.triangles(t, i));
+  }
+  double twice_area = 0.0;
+  const auto g = solver::p1_gradients(e.xy, twice_area);
+  e.area = 0.5 * twice_area;
+  e.grad = g.transpose().cast<Complex>() * e.a;
+  return e;
+}
+
+/// Calls f(E, dA/dtheta, weight) at the three edge midpoints (exact for the quadratic integrands here).
+template <class F>
+void at_midpoints(const Element& e, double omega, double rotor_speed, F f) {
+  for (int k = 0; k < 3; ++k) {
+    const int i = k, j = (k + 1) % 3;
+    const Eigen::Vector2d x = 0.5 * (e.xy.row(i) + e.xy.row(j)).transpose();
+    const Complex a = 0.5 * (e.a(i) + e.a(j));
+    const Complex dtheta = x(0) * e.grad(1) - x(1) * e.grad(0);
+    f(Complex(0.0, omega) * a + rotor_speed * dtheta, dtheta, e.area / 3.0);
+  }
+}
+
+}  // namespace
+
+double arkkio_torque(const mesh::Mesh& m, const Eigen::VectorXcd& a, double stack_length) {
+  double sum = 0.0;
+  for (int t = 0; t < m.n_triangles(); ++t) {
+    if (m.regions[m.triangle_region(t)].kind != mesh::RegionKind::gap) continue;
+    const Element e = element(m, a, t);
+    const Eigen::Vector2d c = e.xy.colwise().mean().transpose();
+    const double r = c.norm();
+    const Eigen::Vector2d radial = c / r, tangential(-radial(1), radial(0));
+    const Complex bx = e.grad(1), by = -e.grad(0);
+    const Complex br = radial(0) * bx + radial(1) * by, bt = tangential(0) * bx + tangential(1) * by;
+    sum += e.area * r * 0.5 * std::real(br * std::conj(bt));
+  }
+  return stack_length * sum / (kMu0 * (m.gap_outer_radius - m.gap_inner_radius));
+}
+
+std::vector<double> region_losses(const mesh::Mesh& m, const Eigen::VectorXcd& a, const std::vector<double>& sigma,
+                                  const std::vector<bool>& on_rotor, double omega, double rotor_speed,
+                                  double stack_length) {
+  std::vector<double> loss(m.regions.size(), 0.0);
+  for (int t = 0; t < m.n_triangles(); ++t) {
+    const int r = m.triangle_region(t);
+    if (sigma[r] == 0.0) continue;
+    at_midpoints(element(m, a, t), omega, on_rotor[r] ? rotor_speed : 0.0,
+                 [&](Complex e, Complex, double w) { loss[r] += 0.5 * sigma[r] * std::norm(e) * w; });
+  }
+  for (double& l : loss) l *= stack_length;
+  return loss;
+}
+
+double lorentz_torque(const mesh::Mesh& m, const Eigen::VectorXcd& a, const std::vector<double>& sigma,
+                      const std::vector<bool>& on_rotor, double omega, double rotor_speed, double stack_length) {
+  double torque = 0.0;
+  for (int t = 0; t < m.n_triangles(); ++t) {
+    const int r = m.triangle_region(t);
+    if (sigma[r] == 0.0 || !on_rotor[r]) continue;
+    at_midpoints(element(m, a, t), omega, rotor_speed, [&](Complex e, Complex dtheta, double w) {
+      torque -= 0.5 * sigma[r] * std::real(e * std::conj(dtheta)) * w;
+    });
+  }
+  return torque * stack_length;
+}
+
+std::vector<std::complex<double>> flux_linkages(const mesh::Mesh& m, const mesh::Winding& w, const Eigen::VectorXcd& a,
+                                                double stack_length) {
+  Eigen::MatrixXd parts(a.size(), 2);
+  parts.col(0) = a.real();
+  parts.col(1) = a.imag();
+  const Eigen::MatrixXd psi = solver::flux_linkage(m, w, parts, stack_length);
+  std::vector<Complex> out;
+  for (Eigen::Index k = 0; k < psi.rows(); ++k) out.push_back({psi(k, 0), psi(k, 1)});
+  return out;
+}
+
+}  // namespace tf::post
+
+namespace tf::post {
+
+SpeedResult evaluate_speed(const SpeedInputs& in, double rotor_speed, const Eigen::VectorXcd& a) {
+  const mesh::Mesh& m = *in.mesh;
+  const double omega = 2 * std::numbers::pi * in.frequency;
+  SpeedResult r;
+  r.rotor_speed = rotor_speed;
+  r.slip = 1.0 - in.winding->spec.pole_pairs() * rotor_speed / omega;
+  r.torque = arkkio_torque(m, a, in.stack_length);
+  r.torque_lorentz = lorentz_torque(m, a, in.sigma, in.on_rotor, omega, rotor_speed, in.stack_length);
+  r.region_loss = region_losses(m, a, in.sigma, in.on_rotor, omega, rotor_speed, in.stack_length);
+  for (std::size_t k = 0; k < m.regions.size(); ++k) (in.on_rotor[k] ? r.rotor_loss : r.stator_loss) += r.region_loss[k];
+  r.flux_linkage = flux_linkages(m, *in.winding, a, in.stack_length);
+  for (std::size_t k = 0; k < r.flux_linkage.size(); ++k) {
+    const Complex v = Complex(0.0, omega) * r.flux_linkage[k];
+    r.emf_rms.push_back(std::abs(v) / std::sqrt(2.0));
+    r.input_power += 0.5 * std::real(v * std::conj(in.currents[k]));
+  }
+  r.rotor_loss_balance = r.input_power - r.stator_loss - r.torque * rotor_speed;
+  return r;
+}
+
+}  // namespace tf::post

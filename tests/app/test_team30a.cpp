@@ -1,0 +1,70 @@
+// TEAM Workshop Problem 30a, three-phase: the eddy-current study of cases/team30a_three_phase.toml
+// against the published torque, EMF and rotor losses at seven rotor speeds.
+
+#include <doctest/doctest.h>
+
+#include <algorithm>
+#include <cmath>
+#include <string>
+
+#include "app/case_reader.hpp"
+#include "mesh/build.hpp"
+#include "mesh/winding.hpp"
+#include "post/eddy_quantities.hpp"
+#include "solver/eddy.hpp"
+#include "support/team30a.hpp"
+
+using namespace tf;
+
+namespace {
+
+std::vector<post::SpeedResult> solve_team30a(double fineness) {
+  app::Case c = app::read_case(std::string(TF_SOURCE_DIR) + "/cases/team30a_three_phase.toml");
+  c.mesh.fineness = fineness;
+  const mesh::Mesh m = mesh::build(c.geometry, mesh::slot_layers(c.winding), c.mesh);
+  const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator);
+  const solver::EddySystem s = solver::assemble_eddy(m, w, c.materials);
+  const auto currents = solver::supply_phasors(c.supply, c.winding.n_phases);
+  solver::EddyStats stats;
+  const auto solutions = solver::solve_eddy(m, s, currents, c.supply.frequency, c.study.rotor_speeds, stats);
+  const post::SpeedInputs in{&m, &w, solver::region_conductivity(m, c.materials), solver::region_on_rotor(m),
+                             currents, c.supply.frequency, c.stack_length};
+  std::vector<post::SpeedResult> rows;
+  for (const auto& x : solutions) rows.push_back(post::evaluate_speed(in, x.rotor_speed, x.potential));
+  return rows;
+}
+
+double error(double value, double reference) { return std::abs(value / reference - 1.0); }
+
+}  // namespace
+
+TEST_CASE("TEAM 30a: torque, EMF and rotor loss at seven speeds, converging under refinement") {
+  const auto coarse = solve_team30a(1.0);
+  const auto fine = solve_team30a(2.0);
+  REQUIRE(coarse.size() == testing::kTeam30a.size());
+  for (std::size_t k = 0; k < coarse.size(); ++k) {
+    const auto& ref = testing::kTeam30a[k];
+    const auto& r = coarse[k];
+    INFO("speed " << ref.speed << " rad/s: torque " << r.torque << ", EMF " << r.emf_rms[0] << ", rotor loss "
+                  << r.rotor_loss << " (by power balance " << r.rotor_loss_balance << ")");
+    CHECK(r.rotor_speed == ref.speed);
+    // The issue asks for 2 %, aiming at 1 %; measured on this mesh: 0.30 % at worst (400 rad/s).
+    CHECK(error(r.torque, ref.torque) < 0.01);
+    CHECK(error(r.emf_rms[0], ref.emf) < 0.005);  // CHECKS.md: EMF +- 0.5 %
+    // Losses by power balance (input less Arkkio's mechanical power) within 1 % at every speed;
+    // integrated from the current density within 1 % where the rotor is slow.
+    CHECK(error(r.rotor_loss_balance, ref.rotor_loss) < 0.01);
+    if (ref.speed <= 200) CHECK(error(r.rotor_loss, ref.rotor_loss) < 0.01);
+    // Power balance, exact for the discrete equations: input = Joule losses + Lorentz mechanical power.
+    const double balance = r.input_power - r.rotor_loss - r.stator_loss - r.torque_lorentz * r.rotor_speed;
+    CHECK(std::abs(balance) < 1e-6 * std::max(std::abs(r.input_power), r.rotor_loss));
+    // Arkkio and the Lorentz force on the induced currents agree to discretization error.
+    CHECK(error(r.torque_lorentz, r.torque) < 0.02);
+    // Halving the elements brings every value closer (first proof of a solver: convergence).
+    CHECK(error(fine[k].torque, ref.torque) < error(r.torque, ref.torque));
+    CHECK(error(fine[k].emf_rms[0], ref.emf) < error(r.emf_rms[0], ref.emf));
+    // The integrated loss of a moving conductor converges about linearly here (measured: the error
+    // falls by 1.9-2.8 times per halving), so we ask for at least a 40 % fall.
+    if (ref.speed >= 400) CHECK(error(fine[k].rotor_loss, ref.rotor_loss) < 0.6 * error(r.rotor_loss, ref.rotor_loss));
+  }
+}
