@@ -2,6 +2,7 @@
 
 #include <chrono>
 #include <cmath>
+#include <numbers>
 
 #include <fmt/format.h>
 
@@ -13,6 +14,7 @@
 #include "post/eddy_output.hpp"
 #include "post/summary.hpp"
 #include "post/vtu.hpp"
+#include "solver/assemble.hpp"
 #include "solver/eddy.hpp"
 
 namespace tf::app {
@@ -79,6 +81,10 @@ void run_eddy_case(const Case& c, const RunOptions& options, std::ostream& out) 
                              currents, c.supply.frequency, c.stack_length};
   std::vector<post::SpeedResult> rows;
   for (const auto& s : solutions) rows.push_back(post::evaluate_speed(in, s.rotor_speed, s.potential));
+  std::vector<double> mu_r;
+  for (double nu : solver::region_reluctivity(m, c.materials)) mu_r.push_back(1.0 / (4e-7 * std::numbers::pi * nu));
+  record.skin = post::skin_depths(m, in.sigma, mu_r, in.on_rotor, c.supply.frequency, c.study.rotor_speeds,
+                                  w.spec.pole_pairs());
   record.seconds.push_back({"post", since(t)});
 
   t = Clock::now();
@@ -98,6 +104,11 @@ void run_eddy_case(const Case& c, const RunOptions& options, std::ostream& out) 
   record.winding = &w;
   record.rows = &rows;
   post::write_eddy_summary(dir / "summary.json", record);
+  for (const auto& d : record.skin)
+    if (d.too_coarse)
+      out << fmt::format("warning: {}: skin depth {:.3g} mm at {:.4g} Hz, but elements up to {:.3g} mm; fewer than "
+                         "three per skin depth: raise [mesh] fineness\n",
+                         d.region, 1e3 * d.depth, d.frequency, 1e3 * d.element_size);
   print_rows(out, c, rows, dir);
 }
 

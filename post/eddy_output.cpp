@@ -66,6 +66,10 @@ void write_eddy_summary(const std::filesystem::path& path, const EddyRecord& r) 
                         {"headline", headline(*r.rows)},
                         {"torque_method", "Arkkio: Maxwell stress averaged over the whole gap band; "
                                           "torque_lorentz from the induced currents, a cross-check"}};
+  j["skin_depths"] = json::array();
+  for (const auto& d : r.skin)
+    j["skin_depths"].push_back({{"region", d.region}, {"skin_depth_m", d.depth}, {"at_frequency_Hz", d.frequency},
+                                {"largest_element_m", d.element_size}, {"mesh_too_coarse", d.too_coarse}});
   j["solver"] = {{"unknowns", r.stats.n_dofs},
                  {"method", "UMFPACK complex LU; one symbolic analysis, one factorization per speed"},
                  {"analyse_s", r.stats.analyse_seconds},

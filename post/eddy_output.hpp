@@ -28,6 +28,7 @@ struct EddyRecord {
   const mesh::Mesh* mesh = nullptr;
   const mesh::Winding* winding = nullptr;
   const std::vector<SpeedResult>* rows = nullptr;
+  std::vector<SkinDepth> skin;
   solver::EddyStats stats;
   std::vector<std::pair<std::string, double>> seconds;
   std::vector<std::string> files;

@@ -1,5 +1,6 @@
 #include "post/eddy_quantities.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <numbers>
 
@@ -121,6 +122,50 @@ SpeedResult evaluate_speed(const SpeedInputs& in, double rotor_speed, const Eige
   }
   r.rotor_loss_balance = r.input_power - r.stator_loss - r.torque * rotor_speed;
   return r;
+}
+
+}  // namespace tf::post
+
+namespace tf::post {
+
+std::vector<SkinDepth> skin_depths(const mesh::Mesh& m, const std::vector<double>& sigma,
+                                   const std::vector<double>& mu_r, const std::vector<bool>& on_rotor,
+                                   double frequency, const std::vector<double>& rotor_speeds, int pole_pairs) {
+  const double omega = 2 * std::numbers::pi * frequency;
+  double slip_omega = 0.0;
+  for (double w : rotor_speeds) slip_omega = std::max(slip_omega, std::abs(omega - pole_pairs * w));
+  const std::size_t n = m.regions.size();
+  std::vector<double> depth(n, INFINITY), r_min(n, INFINITY), r_max(n, 0.0), longest(n, 0.0);
+  for (std::size_t r = 0; r < n; ++r) {
+    const double w = on_rotor[r] ? slip_omega : omega;
+    if (sigma[r] > 0.0 && w > 0.0) depth[r] = std::sqrt(2.0 / (w * kMu0 * mu_r[r] * sigma[r]));
+  }
+  for (int t = 0; t < m.n_triangles(); ++t)
+    for (int i = 0; i < 3; ++i) {
+      const double radius = m.nodes.row(m.triangles(t, i)).norm();
+      r_min[m.triangle_region(t)] = std::min(r_min[m.triangle_region(t)], radius);
+      r_max[m.triangle_region(t)] = std::max(r_max[m.triangle_region(t)], radius);
+    }
+  // The currents crowd into the skin facing the gap: the rotor's outside, the stator's inside.
+  for (int t = 0; t < m.n_triangles(); ++t) {
+    const int r = m.triangle_region(t);
+    if (sigma[r] <= 0.0) continue;
+    Eigen::Vector2d c = Eigen::Vector2d::Zero();
+    double edge = 0.0;
+    for (int i = 0; i < 3; ++i) {
+      c += m.nodes.row(m.triangles(t, i)).transpose() / 3.0;
+      edge = std::max(edge, (m.nodes.row(m.triangles(t, i)) - m.nodes.row(m.triangles(t, (i + 1) % 3))).norm());
+    }
+    const double from_surface = on_rotor[r] ? r_max[r] - c.norm() : c.norm() - r_min[r];
+    if (from_surface <= depth[r]) longest[r] = std::max(longest[r], edge);
+  }
+  std::vector<SkinDepth> out;
+  for (std::size_t r = 0; r < n; ++r) {
+    if (sigma[r] <= 0.0) continue;
+    const double w = on_rotor[r] ? slip_omega : omega;
+    out.push_back({m.regions[r].name, depth[r], w / (2 * std::numbers::pi), longest[r], longest[r] > depth[r] / 3.0});
+  }
+  return out;
 }
 
 }  // namespace tf::post

@@ -2,6 +2,7 @@
 // What follows from a time-harmonic solution (peak phasors; time averages carry the factor 1/2).
 
 #include <complex>
+#include <string>
 #include <vector>
 
 #include <Eigen/Core>
@@ -66,5 +67,24 @@ struct SpeedInputs {
 };
 
 SpeedResult evaluate_speed(const SpeedInputs& in, double rotor_speed, const Eigen::VectorXcd& a);
+
+}  // namespace tf::post
+
+namespace tf::post {
+
+/// Skin depth of one conducting region against its largest elements.
+struct SkinDepth {
+  std::string region;
+  double depth = 0.0;         ///< delta = sqrt(2 / (omega mu sigma)) [m] at the highest frequency it sees
+  double frequency = 0.0;     ///< that frequency [Hz]: the supply's, or the slip frequency in the rotor
+  double element_size = 0.0;  ///< longest element edge within one skin depth of the face toward the gap [m]
+  bool too_coarse = false;    ///< fewer than three elements per skin depth there
+};
+
+/// delta per conducting region (R. L. Stoll, The Analysis of Eddy Currents, 1974): rotor regions see
+/// the fundamental at |omega - p omega_r| for the fastest slip among the speeds, stator regions omega.
+std::vector<SkinDepth> skin_depths(const mesh::Mesh& m, const std::vector<double>& sigma,
+                                   const std::vector<double>& mu_r, const std::vector<bool>& on_rotor,
+                                   double frequency, const std::vector<double>& rotor_speeds, int pole_pairs);
 
 }  // namespace tf::post
