@@ -61,8 +61,7 @@ void run_eddy_case(const Case& c, const RunOptions& options, std::ostream& out) 
   post::EddyRecord record;
   auto t = Clock::now();
   progress.stage("meshing");
-  const mesh::Mesh m = mesh::build(c.geometry, mesh::slot_layers(c.winding), c.mesh);
-  const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator);
+  const auto [m, w] = mesh_and_wind(c);
   record.seconds.push_back({"mesh", since(t)});
 
   t = Clock::now();

@@ -93,13 +93,16 @@ void print_summary(std::ostream& out, const Case& c, const mesh::Winding& w, con
 
 }  // namespace
 
+MeshedCase mesh_and_wind(const Case& c) {
+  return {mesh::build(c.geometry, mesh::slot_layers(c.winding), c.mesh), mesh::lay_out(c.winding, c.geometry.stator)};
+}
+
 Headline run_case(const Case& c, const RunOptions& options, std::ostream& out) {
   Progress progress;
   post::RunRecord record;
   auto t = Clock::now();
   progress.stage("meshing");
-  const mesh::Mesh m = mesh::build(c.geometry, mesh::slot_layers(c.winding), c.mesh);
-  const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator);
+  const auto [m, w] = mesh_and_wind(c);
   record.seconds.push_back({"mesh", seconds_since(t)});
 
   progress.stage(fmt::format("solving {} phase fields", c.winding.n_phases));

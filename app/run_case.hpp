@@ -5,6 +5,8 @@
 #include <ostream>
 
 #include "app/case.hpp"
+#include "mesh/mesh.hpp"
+#include "mesh/winding.hpp"
 #include "post/rotation_metrics.hpp"
 
 namespace tf::app {
@@ -15,6 +17,13 @@ struct RunOptions {
   std::filesystem::path out_dir;
   bool all_field_files = false;  ///< a VTU file for every step instead of study.field_files
 };
+
+/// The mesh of a case and its winding laid out on it: the first step of every study.
+struct MeshedCase {
+  mesh::Mesh mesh;
+  mesh::Winding winding;
+};
+MeshedCase mesh_and_wind(const Case& c);
 
 /// The headline numbers of one run, for comparisons.
 struct Headline {

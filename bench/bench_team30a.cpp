@@ -12,6 +12,7 @@
 #include <fmt/format.h>
 
 #include "app/case_reader.hpp"
+#include "app/run_case.hpp"
 #include "mesh/build.hpp"
 #include "mesh/winding.hpp"
 #include "post/eddy_quantities.hpp"
@@ -36,8 +37,7 @@ int main(int argc, char** argv) {
     app::Case c = app::read_case(path);
     c.mesh.fineness = fineness;
     const auto start = Clock::now();
-    const mesh::Mesh m = mesh::build(c.geometry, mesh::slot_layers(c.winding), c.mesh);
-    const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator);
+    const auto [m, w] = app::mesh_and_wind(c);
     const solver::EddySystem s = solver::assemble_eddy(m, w, c.materials);
     const auto currents = solver::supply_phasors(c.supply, c.winding.n_phases);
     solver::EddyStats stats;

@@ -8,6 +8,7 @@
 #include <string>
 
 #include "app/case_reader.hpp"
+#include "app/run_case.hpp"
 #include "mesh/build.hpp"
 #include "mesh/winding.hpp"
 #include "post/eddy_quantities.hpp"
@@ -21,8 +22,7 @@ namespace {
 std::vector<post::SpeedResult> solve_team30a(double fineness) {
   app::Case c = app::read_case(std::string(TF_SOURCE_DIR) + "/cases/team30a_three_phase.toml");
   c.mesh.fineness = fineness;
-  const mesh::Mesh m = mesh::build(c.geometry, mesh::slot_layers(c.winding), c.mesh);
-  const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator);
+  const auto [m, w] = app::mesh_and_wind(c);
   const solver::EddySystem s = solver::assemble_eddy(m, w, c.materials);
   const auto currents = solver::supply_phasors(c.supply, c.winding.n_phases);
   solver::EddyStats stats;
