@@ -126,8 +126,9 @@ Headline run_case(const Case& c, const RunOptions& options, std::ostream& out) {
   post::write_steps_table(dir / "steps.csv", r, c.supply.frequency);
   post::write_gap_table(dir / "gap_field.csv", r);
   post::write_harmonics_table(dir / "harmonics.csv", r, c.winding.pole_pairs());
+  post::write_poles_table(dir / "poles.csv", r);
   post::write_winding_tables(dir, w, 13);
-  record.files = {"steps.csv", "gap_field.csv", "harmonics.csv", "winding.csv", "winding_factors.csv"};
+  record.files = {"steps.csv", "gap_field.csv", "harmonics.csv", "poles.csv", "winding.csv", "winding_factors.csv"};
   const int n_files = options.all_field_files ? c.study.n_steps : c.study.n_field_files;
   if (n_files > 0) {
     const auto vtu = write_field_files(dir, m, fields, r, post::field_file_steps(c.study.n_steps, n_files),

@@ -34,6 +34,7 @@ StudyResult phase_sweep(const mesh::Mesh& m, const mesh::Winding& w, const solve
     s.fundamental = s.harmonics(p);
     s.axis = axis_angle(s.fundamental, p);
     s.peak = s.br.cwiseAbs().maxCoeff();
+    s.poles = pole_map(s.br, ops.radius);
     const double others = s.harmonics.segment(1, max_order).squaredNorm() - std::norm(s.fundamental);
     s.distortion = std::abs(s.fundamental) > 0.0 ? std::sqrt(std::max(0.0, others)) / std::abs(s.fundamental) : 0.0;
     fundamental.push_back(s.fundamental);

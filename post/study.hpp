@@ -10,6 +10,7 @@
 #include "mesh/mesh.hpp"
 #include "mesh/winding.hpp"
 #include "post/gap_field.hpp"
+#include "post/pole_map.hpp"
 #include "post/rotation_metrics.hpp"
 #include "solver/phase_fields.hpp"
 #include "solver/supply.hpp"
@@ -39,6 +40,7 @@ struct StepResult {
   double axis = 0.0;        ///< mechanical axis angle of the fundamental [rad]
   double peak = 0.0;        ///< max_θ |B_r| [T]
   double distortion = 0.0;  ///< sqrt(Σ_{n≠p} |c_n|²)/|c_p|, n = 1 .. p * max_harmonic
+  std::vector<Pole> poles;  ///< the stator field's north and south poles on the mid-gap circle
 };
 
 struct StudyResult {

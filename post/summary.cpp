@@ -13,6 +13,12 @@ namespace {
 using nlohmann::json;
 constexpr double kDeg = 180.0 / std::numbers::pi;
 
+json pole_counts(const StepResult& step) {
+  int north = 0;
+  for (const auto& pole : step.poles) north += pole.north ? 1 : 0;
+  return {{"north", north}, {"south", static_cast<int>(step.poles.size()) - north}};
+}
+
 json field_results(const StudyResult& s, int pole_pairs) {
   const RotationMetrics& r = s.metrics;
   return {
@@ -31,6 +37,7 @@ json field_results(const StudyResult& s, int pole_pairs) {
       {"harmonic_method",
        "B_r harmonics from the Fourier series of nodal A on the mid-gap circle, B_r,n = n A_n / r"},
       {"steps", s.steps.size()},
+      {"poles_at_first_step", pole_counts(s.steps.front())},
       {"gap_points", s.sample_angles.size()},
   };
 }

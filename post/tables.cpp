@@ -21,12 +21,15 @@ void write_steps_table(const std::filesystem::path& path, const StudyResult& r, 
     const std::size_t m = r.steps.front().currents.size();
     out << "step,electrical_angle_deg,time_s";
     for (std::size_t k = 0; k < m; ++k) out << ",current_" << phase_name(static_cast<int>(k)) << "_A";
-    out << ",fundamental_T,axis_deg,peak_T,distortion\n";
+    out << ",fundamental_T,axis_deg,peak_T,distortion,north_poles,south_poles\n";
     for (std::size_t k = 0; k < r.steps.size(); ++k) {
       const StepResult& s = r.steps[k];
       out << k << ',' << s.electrical_angle * kDeg << ',' << s.electrical_angle / (2 * std::numbers::pi * frequency);
       for (double i : s.currents) out << ',' << i;
-      out << ',' << std::abs(s.fundamental) << ',' << s.axis * kDeg << ',' << s.peak << ',' << s.distortion << '\n';
+      int north = 0;
+      for (const auto& pole : s.poles) north += pole.north ? 1 : 0;
+      out << ',' << std::abs(s.fundamental) << ',' << s.axis * kDeg << ',' << s.peak << ',' << s.distortion << ','
+          << north << ',' << s.poles.size() - north << '\n';
     }
   });
 }
@@ -42,6 +45,15 @@ void write_gap_table(const std::filesystem::path& path, const StudyResult& r) {
                      r.steps[k].br(i), r.steps[k].bt(i));
     }
   write_atomically(path, [&](std::ostream& out) { out.write(text.data(), static_cast<std::streamsize>(text.size())); });
+}
+
+void write_poles_table(const std::filesystem::path& path, const StudyResult& r) {
+  write_atomically(path, [&](std::ostream& out) {
+    out << "step,polarity,angle_deg,flux_Wb_per_m\n";
+    for (std::size_t k = 0; k < r.steps.size(); ++k)
+      for (const auto& pole : r.steps[k].poles)
+        out << k << ',' << (pole.north ? "N" : "S") << ',' << pole.angle * kDeg << ',' << pole.flux << '\n';
+  });
 }
 
 void write_harmonics_table(const std::filesystem::path& path, const StudyResult& r, int pole_pairs) {

@@ -126,6 +126,12 @@ TEST_CASE("every case in cases/ runs headless on a coarse mesh and gives a sound
       CHECK(ratio < 0.01);
       CHECK(field["rotation_uniformity_deg"].get<double>() < 0.05);
     }
+    // Pole map: as many north as south poles; an integral-slot winding makes exactly p of each.
+    const auto& poles = field["poles_at_first_step"];
+    CHECK(poles["north"].get<int>() == poles["south"].get<int>());
+    const double q = s["winding"]["slots_per_pole_per_phase"].get<double>();
+    if (q == std::floor(q) && s["inputs"]["stator"]["kind"] == "slotted")
+      CHECK(2 * poles["north"].get<int>() == s["inputs"]["winding"]["poles"].get<int>());
     if (kind != "stepped_dc") {
       const auto& seq = s["drive"]["sequence_components_peak_A"];
       const double expected = seq["negative"].get<double>() / seq["positive"].get<double>();
@@ -137,7 +143,8 @@ TEST_CASE("every case in cases/ runs headless on a coarse mesh and gives a sound
       CHECK(field["fundamental_T"].get<double>() > 0.2);
       CHECK(field["fundamental_T"].get<double>() < 1.2);
     }
-    for (const char* f : {"steps.csv", "gap_field.csv", "harmonics.csv", "winding.csv", "field.pvd", "field_0000.vtu"})
+    for (const char* f : {"steps.csv", "gap_field.csv", "harmonics.csv", "poles.csv", "winding.csv", "field.pvd",
+                          "field_0000.vtu"})
       CHECK(fs::exists(out / f));
     // No temporary file is left behind.
     for (const auto& written : fs::directory_iterator(out)) CHECK(written.path().filename().string()[0] != '.');
