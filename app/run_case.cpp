@@ -75,7 +75,9 @@ void print_summary(std::ostream& out, const Case& c, const mesh::Winding& w, con
   const auto k = mesh::winding_factors(w, 1)[0];
   out << fmt::format("{}\n", c.title);
   out << fmt::format("  {} {}, {} poles, {} phases, q = {:.4g}, winding factor {:.4f}\n", c.geometry.stator.n_slots,
-                     c.geometry.stator.kind == mesh::StatorKind::salient ? "salient poles" : "slots",
+                     c.geometry.stator.kind == mesh::StatorKind::salient    ? "salient poles"
+                     : c.geometry.stator.kind == mesh::StatorKind::slotless ? "winding sectors"
+                                                                             : "slots",
                      c.winding.n_poles, c.winding.n_phases, w.slots_per_pole_per_phase(), k.from_layout);
   out << fmt::format("  air-gap B_r fundamental   {:.4f} T   amplitude ripple {:.4f} %\n", x.mean_fundamental,
                      100 * x.amplitude_ripple);

@@ -31,19 +31,20 @@ std::string q_text(const mesh::Winding& w) {
   return den / g == 1 ? fmt::format("{}", num / g) : fmt::format("{}/{}", num / g, den / g);
 }
 
-void print_header(const mesh::Winding& w, std::ostream& out) {
+void print_header(const mesh::Winding& w, bool sectors, std::ostream& out) {
+  const char* slots = sectors ? "winding sectors" : "slots";
   const auto& spec = w.spec;
   if (w.rule == mesh::LayoutRule::pole_coils)
     out << fmt::format("{} salient poles, a {}-pole field, {} phases", w.n_slots, spec.n_poles, spec.n_phases);
   else
-    out << fmt::format("{} slots, {} poles, {} phases, {} layer{}", w.n_slots, spec.n_poles, spec.n_phases,
+    out << fmt::format("{} {}, {} poles, {} phases, {} layer{}", w.n_slots, slots, spec.n_poles, spec.n_phases,
                        spec.n_layers, spec.n_layers > 1 ? "s" : "");
   if (w.rule != mesh::LayoutRule::table && w.rule != mesh::LayoutRule::pole_coils)
-    out << fmt::format(", coil pitch {} slots", spec.coil_pitch);
+    out << fmt::format(", coil pitch {} {}", spec.coil_pitch, slots);
   if (w.rule == mesh::LayoutRule::pole_coils)
     out << "\n";
   else
-    out << fmt::format(" (pole pitch {:g} slots)\n", static_cast<double>(w.n_slots) / spec.n_poles);
+    out << fmt::format(" (pole pitch {:g} {})\n", static_cast<double>(w.n_slots) / spec.n_poles, slots);
   out << fmt::format("layout: {}; q = {} slots per pole per phase; periodicity t = gcd(Q, p) = {}\n",
                      rule_name(w.rule), q_text(w), w.periodicity());
   out << fmt::format("{:g} series turns per phase; {} parallel path{}\n\n", w.series_turns(), spec.parallel_paths,
@@ -118,7 +119,7 @@ void print_json(const mesh::Winding& w, std::ostream& out) {
 void print_winding(const Case& c, bool as_json, std::ostream& out) {
   const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator);
   if (as_json) return print_json(w, out);
-  print_header(w, out);
+  print_header(w, c.geometry.stator.kind == mesh::StatorKind::slotless, out);
   print_table(w, out);
   print_factors(w, out);
 }
