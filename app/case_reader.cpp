@@ -110,13 +110,18 @@ void reject_other_kinds(const Fields& f, mesh::StatorKind kind) {
 
 mesh::StatorGeometry read_stator(const Fields& root) {
   const Fields f = root.table(
-      "stator", {"kind", "bore_radius", "outer_radius", "boundary_radius", "slots", "slot", "poles", "belts"});
+      "stator", {"kind", "bore_radius", "outer_radius", "boundary_radius", "boundary", "slots", "slot", "poles", "belts"});
   mesh::StatorGeometry s;
   s.kind = static_cast<mesh::StatorKind>(f.choice_or("kind", {"slotted", "salient", "slotless"}, 0));
   s.bore_radius = f.real("bore_radius", radius);
   // Only the plain ranges here; "larger than the bore" and "beyond the stator" are consistency checks.
   s.outer_radius = f.real("outer_radius", radius);
   s.boundary_radius = f.real_or("boundary_radius", 0.0, {.min = 0, .max = 50, .min_excluded = true, .unit = "m"});
+  // "open": the air beyond the boundary circle reaches to infinity (Kelvin transformation).
+  s.open_boundary = f.choice_or("boundary", {"zero_potential", "open"}, 0) == 1;
+  if (s.open_boundary && !f.has("boundary_radius"))
+    f.fail("boundary", "an open boundary needs the circle where the exterior begins",
+           "boundary_radius, beyond the stator's outer radius");
   reject_other_kinds(f, s.kind);
   if (s.kind == mesh::StatorKind::salient) {
     read_poles(f, s);

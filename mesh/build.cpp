@@ -78,10 +78,25 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
   const int n_rotor = rotor_sectors(n_slots);
 
   detail::GmshSession session;
-  const detail::SectorMesh stator = detail::mesh_stator_sector(g, layers, per_slot, size);
-  const detail::SectorMesh rotor =
-      detail::mesh_rotor_sector(g, n_rotor, stator.start_angle, n_sliding / n_rotor, size);
-  return detail::replicate(g, stator, n_slots, rotor, n_rotor);
+  if (!g.stator.open_boundary) {
+    const detail::SectorMesh stator = detail::mesh_stator_sector(g, layers, per_slot, size);
+    const detail::SectorMesh rotor =
+        detail::mesh_rotor_sector(g, n_rotor, stator.start_angle, n_sliding / n_rotor, size);
+    return detail::replicate(g, stator, n_slots, rotor, n_rotor);
+  }
+  // Open boundary: the boundary arc and its exterior image's arc are divided alike, so that their
+  // nodes face each other; in the image, elements grow towards the centre (infinity).
+  const double r_b = g.stator.boundary_radius;
+  const double rim = size(r_b, 0.0);
+  int per_arc = std::max(2, static_cast<int>(std::ceil(2 * kPi * r_b / n_slots / rim)));
+  if (n_slots == 2) per_arc += per_arc % 2;
+  const detail::SizeRule image_size = [=](double x, double y) {
+    return std::min(0.25 * r_b, rim + 0.3 * (r_b - std::hypot(x, y)));
+  };
+  const detail::SectorMesh stator = detail::mesh_stator_sector(g, layers, per_slot, size, per_arc);
+  const detail::SectorMesh rotor = detail::mesh_rotor_sector(g, n_rotor, stator.start_angle, n_sliding / n_rotor, size);
+  const detail::SectorMesh image = detail::mesh_exterior_image(g, per_arc, image_size);
+  return detail::replicate(g, stator, n_slots, rotor, n_rotor, &image);
 }
 
 }  // namespace tf::mesh

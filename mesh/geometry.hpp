@@ -54,6 +54,9 @@ struct StatorGeometry {
   /// Where A = 0 is imposed [m]: 0 for the stator's outer surface; larger for an air ring outside
   /// the stator (machines whose yoke does not keep the field in, such as TEAM problem 30a).
   double boundary_radius = 0.0;
+  /// The air beyond boundary_radius reaches to infinity, by the Kelvin transformation of an outer
+  /// disc (an exact open boundary), instead of A = 0 on the boundary circle.
+  bool open_boundary = false;
 };
 
 /// How each slot is divided among coil sides. Salient-pole stators always carry two sides per

@@ -3,6 +3,7 @@
 
 #include <stdexcept>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include <Eigen/Core>
@@ -52,6 +53,9 @@ struct Mesh {
   std::vector<int> outer_nodes;     ///< nodes on the outermost circle, where A = 0: the stator's outer
                                     ///< surface, or the boundary radius when air surrounds the stator
   SlidingCircle sliding;
+  /// Pairs (node, partner): the node shares its partner's unknown. Used to join the exterior image
+  /// to the boundary circle (the Kelvin transformation), whose nodes sit apart in the drawing.
+  std::vector<std::pair<int, int>> ties;
   double gap_inner_radius = 0.0;    ///< rotor surface [m]
   double gap_outer_radius = 0.0;    ///< stator bore [m]
 

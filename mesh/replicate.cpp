@@ -28,13 +28,45 @@ struct Copies {
   const SectorMesh* sector;
   int n_copies;
   int first_id;
+  Eigen::Vector2d offset = Eigen::Vector2d::Zero();  ///< where the copies' centre is drawn
   int id(int copy, int node) const { return first_id + copy * static_cast<int>(sector->nodes.rows()) + node; }
   Eigen::Vector2d position(int copy, int node) const {
     const double t = copy * sector->span, c = std::cos(t), s = std::sin(t);
     const Eigen::Vector2d p = sector->nodes.row(node);
-    return {c * p(0) - s * p(1), s * p(0) + c * p(1)};
+    return Eigen::Vector2d(c * p(0) - s * p(1), s * p(0) + c * p(1)) + offset;
+  }
+  double angle(int copy, int node) const {
+    const Eigen::Vector2d p = position(copy, node) - offset;
+    return std::atan2(p(1), p(0));
   }
 };
+
+/// The nodes of a family's outer arcs, by angle, without repeats: (angle, new node id).
+std::vector<std::pair<double, int>> ring(const Copies& c, NodeSets& sets, const std::vector<int>& new_id) {
+  std::vector<std::pair<double, int>> nodes;
+  for (int k = 0; k < c.n_copies; ++k)
+    for (int node : c.sector->outer) nodes.push_back({c.angle(k, node), new_id[sets.find(c.id(k, node))]});
+  std::sort(nodes.begin(), nodes.end());
+  std::vector<std::pair<double, int>> unique;
+  for (const auto& n : nodes)
+    if (unique.empty() || unique.back().second != n.second) unique.push_back(n);
+  if (unique.size() > 1 && unique.front().second == unique.back().second) unique.pop_back();
+  return unique;
+}
+
+/// Ties every node of the exterior image's arc to the boundary node at the same angle, and puts
+/// A = 0 at the image's centre (infinity).
+void tie_exterior(Mesh& m, const Copies& stator, const Copies& image, NodeSets& sets, const std::vector<int>& new_id) {
+  const auto outside = ring(stator, sets, new_id), inside = ring(image, sets, new_id);
+  if (outside.size() != inside.size())
+    throw MeshError("the boundary circle and its exterior image carry different node counts");
+  for (std::size_t i = 0; i < outside.size(); ++i) {
+    if (std::abs(std::remainder(outside[i].first - inside[i].first, 2 * std::numbers::pi)) > 1e-6)
+      throw MeshError("the nodes of the boundary circle and of its exterior image do not face each other");
+    m.ties.push_back({inside[i].second, outside[i].second});
+  }
+  m.outer_nodes = {new_id[sets.find(image.id(0, image.sector->start_cut.front()))]};  // the centre
+}
 
 void join_cuts(const Copies& c, NodeSets& sets, double tolerance) {
   const SectorMesh& s = *c.sector;
@@ -124,19 +156,24 @@ std::vector<int> sliding_nodes(const Copies& c, NodeSets& sets, const std::vecto
 }  // namespace
 
 Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies, const SectorMesh& rotor,
-               int n_rotor_copies) {
+               int n_rotor_copies, const SectorMesh* image) {
   const Copies sc{&stator, n_stator_copies, 0};
   const Copies rc{&rotor, n_rotor_copies, n_stator_copies * static_cast<int>(stator.nodes.rows())};
-  const int n_ids = rc.first_id + n_rotor_copies * static_cast<int>(rotor.nodes.rows());
+  const int image_first = rc.first_id + n_rotor_copies * static_cast<int>(rotor.nodes.rows());
+  // The exterior image is drawn beside the machine, three boundary radii to the right.
+  const Copies ic{image ? image : &stator, image ? n_stator_copies : 0, image_first,
+                  Eigen::Vector2d(3.0 * g.stator.boundary_radius, 0.0)};
+  const int n_ids = image_first + ic.n_copies * static_cast<int>(ic.sector->nodes.rows());
   const double tolerance = 1e-7 * g.stator.outer_radius;
   NodeSets sets(n_ids);
   join_cuts(sc, sets, tolerance);
   join_cuts(rc, sets, tolerance);
+  if (image) join_cuts(ic, sets, tolerance);
 
   Mesh m;
   std::vector<int> new_id(n_ids, -1);
   std::vector<Eigen::Vector2d> xy;
-  for (const Copies* c : {&sc, &rc})
+  for (const Copies* c : {&sc, &rc, &ic})
     for (int k = 0; k < c->n_copies; ++k)
       for (int i = 0; i < c->sector->nodes.rows(); ++i) {
         const int root = sets.find(c->id(k, i));
@@ -149,12 +186,13 @@ Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies,
   for (std::size_t i = 0; i < xy.size(); ++i) m.nodes.row(static_cast<Eigen::Index>(i)) = xy[i].transpose();
 
   const int n_tri = n_stator_copies * static_cast<int>(stator.triangles.rows()) +
-                    n_rotor_copies * static_cast<int>(rotor.triangles.rows());
+                    n_rotor_copies * static_cast<int>(rotor.triangles.rows()) +
+                    ic.n_copies * static_cast<int>(ic.sector->triangles.rows());
   m.triangles.resize(n_tri, 3);
   m.triangle_region.resize(n_tri);
   RegionTable table{m.regions, g.stator.kind, {}};
   int t = 0;
-  for (const Copies* c : {&sc, &rc})
+  for (const Copies* c : {&sc, &rc, &ic})
     for (int k = 0; k < c->n_copies; ++k)
       for (int e = 0; e < c->sector->triangles.rows(); ++e, ++t) {
         for (int j = 0; j < 3; ++j) m.triangles(t, j) = new_id[sets.find(c->id(k, c->sector->triangles(e, j)))];
@@ -173,6 +211,7 @@ Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies,
     for (int node : stator.outer) m.outer_nodes.push_back(new_id[sets.find(sc.id(k, node))]);
   std::sort(m.outer_nodes.begin(), m.outer_nodes.end());
   m.outer_nodes.erase(std::unique(m.outer_nodes.begin(), m.outer_nodes.end()), m.outer_nodes.end());
+  if (image) tie_exterior(m, sc, ic, sets, new_id);
   m.gap_inner_radius = g.rotor.outer_radius;
   m.gap_outer_radius = g.stator.bore_radius;
   return m;

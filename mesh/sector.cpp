@@ -111,17 +111,24 @@ void read_triangles(const std::vector<Piece>& pieces, const std::unordered_map<s
   for (std::size_t e = 0; e < tris.size(); ++e) out.triangles.row(static_cast<Eigen::Index>(e)) = tris[e].transpose();
 }
 
+/// Divides an arc (one curve, or two equal halves when the sector spans half a turn) into equal segments.
+void divide_arc(const std::vector<int>& arc, int n_segments, const char* what) {
+  const int n_arcs = static_cast<int>(arc.size());
+  if (n_arcs < 1 || n_arcs > 2 || n_segments % n_arcs != 0)
+    throw MeshError(std::string("the ") + what + " of a sector is " + std::to_string(n_arcs) + " curves for " +
+                    std::to_string(n_segments) + " segments");
+  for (int c : arc) gmsh::model::mesh::setTransfiniteCurve(c, n_segments / n_arcs + 1);
+}
+
+/// n_sliding_segments 0: the sector has no sliding arc (the exterior image); n_outer_segments > 0:
+/// the outer arc is divided equally too, so that another sector can be tied to it node by node.
 SectorMesh mesh_pieces(const std::vector<Piece>& pieces, const SectorFrame& f, int n_sliding_segments,
-                       const SizeRule& size) {
+                       const SizeRule& size, int n_outer_segments = 0) {
   gmsh::model::occ::synchronize();
   Boundaries b = classify_curves(f);
   make_cuts_periodic(b, f.span);
-  // The sliding arc is one curve, or two equal halves when the sector spans half a turn.
-  const int n_arcs = static_cast<int>(b.sliding.size());
-  if (n_arcs < 1 || n_arcs > 2 || n_sliding_segments % n_arcs != 0)
-    throw MeshError("the sliding arc of a sector is " + std::to_string(n_arcs) + " curves for " +
-                    std::to_string(n_sliding_segments) + " segments");
-  for (int arc : b.sliding) gmsh::model::mesh::setTransfiniteCurve(arc, n_sliding_segments / n_arcs + 1);
+  if (n_sliding_segments > 0) divide_arc(b.sliding, n_sliding_segments, "sliding arc");
+  if (n_outer_segments > 0) divide_arc(b.outer, n_outer_segments, "outer arc");
   gmsh::model::mesh::setSizeCallback([&size](int, int, double x, double y, double) { return size(x, y); });
   gmsh::model::mesh::generate(2);
   gmsh::model::mesh::removeSizeCallback();
@@ -148,6 +155,7 @@ SectorMesh mesh_pieces(const std::vector<Piece>& pieces, const SectorFrame& f, i
   out.sliding = curve_nodes(b.sliding, index);
   std::sort(out.sliding.begin(), out.sliding.end(), [&](int p, int q) { return angle(p) < angle(q); });
   out.outer = curve_nodes(b.outer, index);
+  std::sort(out.outer.begin(), out.outer.end(), [&](int p, int q) { return angle(p) < angle(q); });
   return out;
 }
 
@@ -168,7 +176,8 @@ SectorMesh with_context(const char* what, Build build) {
 
 }  // namespace
 
-SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n_sliding_segments, const SizeRule& size) {
+SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n_sliding_segments, const SizeRule& size,
+                              int n_outer_segments) {
   const StatorKind kind = g.stator.kind;
   const char* what = kind == StatorKind::salient    ? "stator pole pitch"
                      : kind == StatorKind::slotless ? "stator belt pitch"
@@ -178,7 +187,15 @@ SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n
     // A = 0 on the outermost circle: the stator's outer surface, or the boundary beyond it.
     const double outer = std::max(g.stator.outer_radius, g.stator.boundary_radius);
     const SectorFrame f{-a, 2 * a, g.mid_gap_radius(), outer, 1e-6 * outer};
-    return mesh_pieces(build_stator_pieces(g, layers), f, n_sliding_segments, size);
+    return mesh_pieces(build_stator_pieces(g, layers), f, n_sliding_segments, size, n_outer_segments);
+  });
+}
+
+SectorMesh mesh_exterior_image(const Geometry& g, int n_outer_segments, const SizeRule& size) {
+  return with_context("exterior image", [&] {
+    const double a = std::numbers::pi / g.stator.n_slots, r = g.stator.boundary_radius;
+    const SectorFrame f{-a, 2 * a, -1.0, r, 1e-6 * r};
+    return mesh_pieces(build_image_pieces(g), f, 0, size, n_outer_segments);
   });
 }
 

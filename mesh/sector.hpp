@@ -41,7 +41,14 @@ using SizeRule = std::function<double(double x, double y)>;
 /// sliding circle to the outer surface (or to the boundary radius beyond it), with n_sliding_segments
 /// equal segments on the sliding arc. Sectors of half a turn (two poles, two rotor sectors) need
 /// an even number of segments: their arcs are drawn in two halves.
-SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n_sliding_segments, const SizeRule& size);
+SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n_sliding_segments, const SizeRule& size,
+                              int n_outer_segments = 0);
+
+/// The Kelvin image of the air beyond the boundary circle (radius R = boundary_radius): the map
+/// r -> R^2 / r, theta -> theta turns the exterior into a disc of radius R, and, being conformal in
+/// 2D, leaves the weak form of the air's field unchanged; the disc's centre is infinity, where A = 0.
+/// One sector of the disc, its arc divided into n_outer_segments equal segments to match the stator's.
+SectorMesh mesh_exterior_image(const Geometry& g, int n_outer_segments, const SizeRule& size);
 
 /// A rotor sector of span 2*pi/n_sectors starting at start_angle, from the centre to the sliding circle.
 SectorMesh mesh_rotor_sector(const Geometry& g, int n_sectors, double start_angle,

@@ -159,6 +159,11 @@ std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& laye
   return fragment_pieces(pieces, {ring, {RegionKind::outer_air, 0}});
 }
 
+std::vector<Piece> build_image_pieces(const Geometry& g) {
+  const double a = std::numbers::pi / g.stator.n_slots;
+  return {{add_annular_sector(0.0, g.stator.boundary_radius, -a, a), {RegionKind::outer_air, 0}}};
+}
+
 std::vector<Piece> build_rotor_pieces(const Geometry& g, double a0, double a1) {
   const RotorGeometry& r = g.rotor;
   std::vector<Piece> rings;

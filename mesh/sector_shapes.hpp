@@ -30,6 +30,9 @@ std::vector<Piece> fragment_domain(int domain, const std::vector<Piece>& shapes,
 /// stators.
 std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& layers);
 
+/// The exterior image: a pie sector of radius boundary_radius centred on the +x axis, one slot pitch wide.
+std::vector<Piece> build_image_pieces(const Geometry& g);
+
 /// The rotor sector between angles a0 and a1, from the centre to the sliding circle.
 std::vector<Piece> build_rotor_pieces(const Geometry& g, double a0, double a1);
 

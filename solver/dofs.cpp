@@ -9,6 +9,7 @@ DofMap number_dofs(const mesh::Mesh& m, int rotor_shift) {
   for (int node : m.outer_nodes) d.dof_of_node[node] = -1;
   const auto& rotor = m.sliding.rotor_nodes;
   for (int node : rotor) d.dof_of_node[node] = -3;  // filled in below
+  for (const auto& [node, partner] : m.ties) d.dof_of_node[node] = -3;
   for (int node = 0; node < m.n_nodes(); ++node)
     if (d.dof_of_node[node] == unset) d.dof_of_node[node] = d.n_dofs++;
   const int n = static_cast<int>(rotor.size());
@@ -16,6 +17,7 @@ DofMap number_dofs(const mesh::Mesh& m, int rotor_shift) {
     const int facing = m.sliding.stator_nodes[((i + rotor_shift) % n + n) % n];
     d.dof_of_node[rotor[i]] = d.dof_of_node[facing];
   }
+  for (const auto& [node, partner] : m.ties) d.dof_of_node[node] = d.dof_of_node[partner];
   return d;
 }
 

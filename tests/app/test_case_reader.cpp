@@ -151,6 +151,7 @@ const std::vector<BadFile> bad_files = {
      25,
      {"[rotor] outer_radius = 0.03", "the rotor touches or overlaps the pole faces (R_b = 30.00 mm)"}},
     {"bad_syntax.toml", 15, {"not valid TOML"}},
+    {"bad_open_boundary_no_radius.toml", 12, {"[stator] boundary = \"open\"", "needs the circle where the exterior begins", "boundary_radius"}},
     {"bad_table_slot_twice.toml", 46, {"[winding] sides[5]", "slot 5 layer 1 is used twice", "each slot-layer in at most one row"}},
     {"bad_table_unbalanced.toml", 40, {"[winding] sides", "as many go (+) as return (-)", "expected a balanced slot table"}},
     {"bad_table_phase_letter.toml", 44, {"[winding] sides[3][2] = \"C\"", "not one of the choices", "\"A\", \"B\""}},
@@ -296,7 +297,8 @@ TEST_CASE("the TEAM 30a case reads its slotless stator, boundary, sleeve and con
   CHECK(s.kind == tf::mesh::StatorKind::slotless);
   CHECK(s.bore_radius == 0.032);
   CHECK(s.outer_radius == 0.057);
-  CHECK(s.boundary_radius == 1.0);
+  CHECK(s.boundary_radius == 0.1);
+  CHECK(s.open_boundary);
   CHECK(s.n_slots == 6);  // the conductor sectors are the winding's slots
   CHECK(s.belts.span == doctest::Approx(std::numbers::pi / 4).epsilon(1e-15).scale(0));  // 45°
   CHECK(s.belts.outer_radius == 0.052);

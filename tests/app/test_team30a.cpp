@@ -1,5 +1,6 @@
 // TEAM Workshop Problem 30a, three-phase: the eddy-current study of cases/team30a_three_phase.toml
-// against the published torque, EMF and rotor losses at seven rotor speeds.
+// (an open boundary by the Kelvin transformation) against the published torque, EMF and rotor
+// losses at seven rotor speeds.
 
 #include <doctest/doctest.h>
 
@@ -48,8 +49,10 @@ TEST_CASE("TEAM 30a: torque, EMF and rotor loss at seven speeds, converging unde
     INFO("speed " << ref.speed << " rad/s: torque " << r.torque << ", EMF " << r.emf_rms[0] << ", rotor loss "
                   << r.rotor_loss << " (by power balance " << r.rotor_loss_balance << ")");
     CHECK(r.rotor_speed == ref.speed);
-    // The issue asks for 2 %, aiming at 1 %; measured on this mesh: 0.30 % at worst (400 rad/s).
-    CHECK(error(r.torque, ref.torque) < 0.01);
+    // The issue asks for 2 %, aiming at 1 %. Measured with the case's open boundary: 0.17 % at
+    // worst on this mesh (400 rad/s), 0.064 % on the finer one.
+    CHECK(error(r.torque, ref.torque) < 0.005);
+    CHECK(error(fine[k].torque, ref.torque) < 0.001);
     CHECK(error(r.emf_rms[0], ref.emf) < 0.005);  // CHECKS.md: EMF +- 0.5 %
     // Losses by power balance (input less Arkkio's mechanical power) within 1 % at every speed;
     // integrated from the current density within 1 % where the rotor is slow.

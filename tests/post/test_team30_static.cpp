@@ -40,11 +40,10 @@ struct Team30 {
   post::StudyResult r;
 };
 
-/// The case at fineness 2: about 47k triangles, the gap 8 elements thick; the whole study takes
-/// about a second at -O2. Measured at fineness 1, 2, 3, 4 the fundamental is 0.22, 0.12, 0.09,
-/// 0.08 % low, the 5th 0.37, 0.15, 0.07, 0.04 % and the 7th 0.63, 0.24, 0.13, 0.09 % low: first-
-/// order elements converging on the reference (what remains at fineness 4 is mostly the boundary
-/// at 1 m, which lowers the fundamental by 0.035 %: 0.05 % low with it at 4 m).
+/// The case at fineness 2, the gap 8 elements thick; the whole study takes about a second at -O2.
+/// With the case's open boundary the fundamental is 0.15 % low at fineness 1 and 0.05 % at 2
+/// (with A = 0 at 1 m instead it was 0.22 and 0.12 %: the boundary cost 0.035 %, and first-order
+/// elements converge on the reference).
 Team30 solve(int n_steps) {
   Team30 t;
   t.c = app::read_case(std::string(TF_SOURCE_DIR) + "/cases/team30a_three_phase.toml");

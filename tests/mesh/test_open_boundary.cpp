@@ -1,0 +1,42 @@
+// The exterior image of an open boundary (Kelvin transformation): tied node by node to the
+// boundary circle, with A = 0 only at its centre.
+
+#include <doctest/doctest.h>
+
+#include <cmath>
+#include <numbers>
+#include <set>
+#include <string>
+
+#include "app/case_reader.hpp"
+#include "mesh/build.hpp"
+#include "solver/dofs.hpp"
+
+using namespace tf;
+
+TEST_CASE("open boundary: the image disc's arc faces the boundary circle node by node") {
+  const app::Case c = app::read_case(std::string(TF_SOURCE_DIR) + "/cases/team30a_three_phase.toml");
+  REQUIRE(c.geometry.stator.open_boundary);
+  const double r = c.geometry.stator.boundary_radius;
+  const mesh::Mesh m = mesh::build(c.geometry, mesh::slot_layers(c.winding), {1.0});
+  // A = 0 at one node: the image's centre, drawn three boundary radii to the right.
+  REQUIRE(m.outer_nodes.size() == 1);
+  CHECK(m.nodes(m.outer_nodes[0], 0) == doctest::Approx(3 * r).scale(0));
+  CHECK(std::abs(m.nodes(m.outer_nodes[0], 1)) < 1e-9 * r);
+  REQUIRE(m.ties.size() >= 6u * 4u);
+  std::set<int> partners;
+  for (const auto& [node, partner] : m.ties) {
+    const Eigen::Vector2d image = m.nodes.row(node).transpose() - Eigen::Vector2d(3 * r, 0.0);
+    const Eigen::Vector2d circle = m.nodes.row(partner).transpose();
+    // Both on a circle of radius r, at the same angle (the map r -> r^2/r keeps angles).
+    CHECK(image.norm() == doctest::Approx(r).epsilon(1e-9).scale(0));
+    CHECK(circle.norm() == doctest::Approx(r).epsilon(1e-9).scale(0));
+    CHECK(std::abs(std::remainder(std::atan2(image(1), image(0)) - std::atan2(circle(1), circle(0)), 2 * std::numbers::pi)) < 1e-9);
+    partners.insert(partner);
+  }
+  CHECK(partners.size() == m.ties.size());  // each boundary node once
+  // The unknowns: a tied node takes its partner's.
+  const solver::DofMap d = solver::number_dofs(m);
+  for (const auto& [node, partner] : m.ties) CHECK(d.dof_of_node[node] == d.dof_of_node[partner]);
+  CHECK(d.dof_of_node[m.outer_nodes[0]] == -1);
+}
