@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <numbers>
+#include <sstream>
 
 #include "mesh/gmsh_session.hpp"
 #include "mesh/replicate.hpp"
@@ -76,6 +77,15 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
   if (n_slots == 2) per_slot += per_slot % 2;
   const int n_sliding = n_slots * per_slot;
   const int n_rotor = rotor_sectors(n_slots);
+  // A runaway fineness would exhaust memory or time; refuse before Gmsh starts.
+  const double gap_triangles = 2.0 * n_sliding * g.gap_length() / h.gap;
+  if (gap_triangles > 4e6) {
+    std::ostringstream message;
+    message << "the air gap alone would take about " << static_cast<long>(gap_triangles / 1e6)
+            << " million triangles at fineness " << c.fineness
+            << "; lower [mesh] fineness (or --fineness) to stay under 4 million";
+    throw MeshError(message.str());
+  }
 
   detail::GmshSession session;
   if (!g.stator.open_boundary) {

@@ -83,6 +83,15 @@ TEST_CASE("a missing case file and a bad command line are bad input too") {
   CHECK(turnfield("run " + demo + " --fineness 0").status == 2);
 }
 
+TEST_CASE("a runaway fineness is refused before meshing: exit 1, a message, nothing written") {
+  const std::string demo = std::string(TF_SOURCE_DIR) + "/cases/pump24_three_phase.toml";
+  const fs::path out = fresh_folder("runaway");
+  const Outcome run = turnfield("run " + demo + " --fineness 20 --out " + out.string());
+  CHECK(run.status == 1);
+  CHECK(run.output.find("lower [mesh] fineness") != std::string::npos);
+  CHECK_FALSE(fs::exists(out));
+}
+
 TEST_CASE("winding prints the slot table and factors, as text and as JSON") {
   const std::string demo = std::string(TF_SOURCE_DIR) + "/cases/pump24_three_phase.toml";
   const Outcome text = turnfield("winding " + demo);
