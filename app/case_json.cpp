@@ -117,7 +117,7 @@ std::string case_to_json(const Case& c) {
         {"field_files", c.study.n_field_files},
         {"gap_points", c.study.n_gap_points},
         {"harmonics", c.study.max_harmonic}}},
-      {"mesh", {{"fineness", c.mesh.fineness}}},
+      {"mesh", {{"fineness", c.mesh.fineness}, {"elements_per_skin_depth", c.mesh.elements_per_skin_depth}}},
   };
   return j.dump();
 }

@@ -233,8 +233,11 @@ Study read_study(const Fields& root, const solver::Supply& supply) {
 
 mesh::MeshControls read_mesh(const Fields& root) {
   mesh::MeshControls m;
-  if (const auto f = root.optional_table("mesh", {"fineness"}))
+  if (const auto f = root.optional_table("mesh", {"fineness", "elements_per_skin_depth"})) {
     m.fineness = f->real_or("fineness", m.fineness, {.min = 0.1, .max = 20});
+    // Turned into sizes by the eddy-current study, which knows the frequencies.
+    m.elements_per_skin_depth = f->real_or("elements_per_skin_depth", 0.0, {.min = 0, .max = 50});
+  }
   return m;
 }
 

@@ -54,11 +54,29 @@ std::vector<std::string> write_fields(const fs::path& dir, const mesh::Mesh& m,
   return files;
 }
 
+/// The thinnest skin of the rotor's conductors [m]: at the largest slip frequency among the speeds.
+double rotor_skin_depth(const Case& c) {
+  const double mu0 = 4e-7 * std::numbers::pi, omega = 2 * std::numbers::pi * c.supply.frequency;
+  double slip = 0.0;
+  for (double w : c.study.rotor_speeds) slip = std::max(slip, std::abs(omega - c.winding.pole_pairs() * w));
+  const auto& m = c.materials;
+  double depth = 0.0;
+  for (const auto& [mu_r, sigma] : {std::pair{m.rotor_iron_mu_r, m.rotor_iron_sigma}, std::pair{m.shaft_mu_r, m.shaft_sigma},
+                                    std::pair{m.sleeve_mu_r, m.sleeve_sigma}})
+    if (sigma > 0.0 && slip > 0.0) {
+      const double d = std::sqrt(2.0 / (slip * mu0 * mu_r * sigma));
+      depth = depth > 0.0 ? std::min(depth, d) : d;
+    }
+  return depth;
+}
+
 }  // namespace
 
-void run_eddy_case(const Case& c, const RunOptions& options, std::ostream& out) {
+void run_eddy_case(const Case& given, const RunOptions& options, std::ostream& out) {
   Progress progress;
   post::EddyRecord record;
+  Case c = given;
+  c.mesh.skin_depth = rotor_skin_depth(c);
   auto t = Clock::now();
   progress.stage("meshing");
   const auto [m, w] = mesh_and_wind(c);
@@ -106,7 +124,7 @@ void run_eddy_case(const Case& c, const RunOptions& options, std::ostream& out) 
   for (const auto& d : record.skin)
     if (d.too_coarse)
       out << fmt::format("warning: {}: skin depth {:.3g} mm at {:.4g} Hz, but elements up to {:.3g} mm; fewer than "
-                         "three per skin depth: raise [mesh] fineness\n",
+                         "three per skin depth: raise [mesh] fineness or set [mesh] elements_per_skin_depth\n",
                          d.region, 1e3 * d.depth, d.frequency, 1e3 * d.element_size);
   print_rows(out, c, rows, dir);
 }

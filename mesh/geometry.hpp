@@ -90,6 +90,11 @@ struct Geometry {
 /// One knob for the element sizes: 1 is the default, 2 halves every element size.
 struct MeshControls {
   double fineness = 1.0;
+  /// Eddy currents: the rotor's skin, one skin_depth [m] deep under its surface, gets at least
+  /// this many elements per skin depth; 0 leaves the sizes to the fineness alone. The study that
+  /// knows the frequencies sets skin_depth.
+  double elements_per_skin_depth = 0.0;
+  double skin_depth = 0.0;
 };
 
 }  // namespace tf::mesh

@@ -5,10 +5,16 @@
 #include <doctest/doctest.h>
 
 #include <algorithm>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+
+#include <nlohmann/json.hpp>
 #include <cmath>
 #include <string>
 
 #include "app/case_reader.hpp"
+#include "app/eddy_run.hpp"
 #include "app/run_case.hpp"
 #include "mesh/build.hpp"
 #include "mesh/winding.hpp"
@@ -69,5 +75,30 @@ TEST_CASE("TEAM 30a: torque, EMF and rotor loss at seven speeds, converging unde
     // The integrated loss of a moving conductor converges about linearly here (measured: the error
     // falls by 1.9-2.8 times per halving), so we ask for at least a 40 % fall.
     if (ref.speed >= 400) CHECK(error(fine[k].rotor_loss, ref.rotor_loss) < 0.6 * error(r.rotor_loss, ref.rotor_loss));
+  }
+}
+
+TEST_CASE("[mesh] elements_per_skin_depth resolves the rotor's skin that the coarse mesh leaves too coarse") {
+  // Skin depth delta = sqrt(2 / (omega mu sigma)) (Stoll 1974); the check counts the longest
+  // elements within one delta of each conductor's face toward the gap.
+  app::Case c = app::read_case(std::string(TF_SOURCE_DIR) + "/cases/team30a_three_phase.toml");
+  c.mesh.fineness = 1.0;
+  c.study.n_field_files = 0;
+  auto run = [&](double per_depth) {
+    c.mesh.elements_per_skin_depth = per_depth;
+    const auto dir = std::filesystem::temp_directory_path() / "turnfield_test_skin";
+    std::filesystem::remove_all(dir);
+    std::ostringstream quiet;
+    app::run_eddy_case(c, {dir, false}, quiet);
+    std::ifstream in(dir / "summary.json");
+    return nlohmann::json::parse(in)["skin_depths"];
+  };
+  bool coarse_somewhere = false;
+  for (const auto& d : run(0.0)) coarse_somewhere |= d["mesh_too_coarse"].get<bool>();
+  CHECK(coarse_somewhere);
+  for (const auto& d : run(3.0)) {
+    INFO(d.dump());
+    CHECK_FALSE(d["mesh_too_coarse"].get<bool>());
+    CHECK(d["skin_depth_m"].get<double>() / d["largest_element_m"].get<double>() >= 3.0);
   }
 }
