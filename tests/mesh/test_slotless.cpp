@@ -13,6 +13,7 @@
 #include "mesh/build.hpp"
 #include "mesh/winding.hpp"
 #include "support/mesh_checks.hpp"
+#include "support/winding_spec.hpp"
 #include "support/sample_geometry.hpp"
 
 using namespace tf;
@@ -232,13 +233,7 @@ TEST_CASE("far from the gap, elements resolve a slotless stator's iron ring, but
 TEST_CASE("phase belts on six conductor sectors: +A, -C, +B, -A, +C, -B, TEAM 30a's arrangement") {
   // K. R. Davey, TEAM Problem 30a (../shared/CHECKS.md §1): counter-clockwise from 0° in 60° steps,
   // A+, C-, B+, A-, C+, B-. An integral-slot single layer, q = 6/(2·3) = 1, full pitch.
-  mesh::WindingSpec spec;
-  spec.n_phases = 3;
-  spec.n_poles = 2;
-  spec.n_layers = 1;
-  spec.coil_pitch = 3;
-  spec.turns_per_coil = 1;
-  const mesh::Winding w = mesh::lay_out(spec, team30a(1.0).stator);
+  const mesh::Winding w = mesh::lay_out(testing::winding_spec(3, 2, 1, 3, 1), team30a(1.0).stator);
   CHECK(w.rule == mesh::LayoutRule::phase_belts);
   REQUIRE(w.sides.size() == 6);
   const int phase[] = {0, 2, 1, 0, 2, 1}, direction[] = {1, -1, 1, -1, 1, -1};

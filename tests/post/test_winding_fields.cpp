@@ -14,6 +14,7 @@
 #include "solver/phase_fields.hpp"
 #include "support/sample_geometry.hpp"
 #include "support/study_plan.hpp"
+#include "support/winding_spec.hpp"
 
 using namespace tf;
 
@@ -72,13 +73,7 @@ TEST_CASE("two coil pairs switched through four DC states: the axis steps a quar
   // Common practice for switched-DC stepping fields: with two coil pairs at right angles energised
   // A, B, -A, -B in turn, the field axis of a 2-pole field moves 90° per state, at constant amplitude.
   const mesh::Geometry g = testing::salient_stator();
-  mesh::WindingSpec spec;
-  spec.n_phases = 2;
-  spec.n_poles = 2;
-  spec.n_layers = 2;
-  spec.coil_pitch = 1;
-  spec.turns_per_coil = 50;
-  const Solved s = solve(g, spec, 2000.0, 0.5);
+  const Solved s = solve(g, testing::winding_spec(2, 2, 2, 1, 50), 2000.0, 0.5);
   solver::Supply dc;
   dc.kind = solver::SupplyKind::stepped_dc;
   dc.states = {{1.0, 0.0}, {0.0, 1.0}, {-1.0, 0.0}, {0.0, -1.0}};
@@ -95,13 +90,7 @@ TEST_CASE("two coil pairs switched through four DC states: the axis steps a quar
 TEST_CASE("two-phase winding, currents 90 and 60 degrees apart: backward/forward against symmetrical components") {
   // Balanced (90°): a circular field. 60°: I_f = (I_A + j I_B)/2 and I_b = (I_A - j I_B)/2 give
   // |I_b|/|I_f| = tan 15° = 0.267949, computed by hand from the currents (Fortescue's method).
-  mesh::WindingSpec spec;
-  spec.n_phases = 2;
-  spec.n_poles = 4;
-  spec.n_layers = 2;
-  spec.coil_pitch = 6;
-  spec.turns_per_coil = 10;
-  const Solved s = solve(testing::semi_closed_stator(), spec, 1000.0, 0.5);
+  const Solved s = solve(testing::semi_closed_stator(), testing::winding_spec(2, 4, 2, 6, 10), 1000.0, 0.5);
   solver::Supply supply;
   supply.kind = solver::SupplyKind::phasors;
   supply.phasors = {std::polar(5.0, 0.0), std::polar(5.0, -kPi / 2)};

@@ -14,6 +14,7 @@
 #include "solver/phase_fields.hpp"
 #include "solver/split_phase.hpp"
 #include "support/sample_geometry.hpp"
+#include "support/winding_spec.hpp"
 
 using namespace tf;
 
@@ -28,13 +29,7 @@ struct TwoPhase {
 
 TwoPhase two_phase_stator() {
   const mesh::Geometry g = testing::semi_closed_stator();
-  mesh::WindingSpec spec;
-  spec.n_phases = 2;
-  spec.n_poles = 4;
-  spec.n_layers = 2;
-  spec.coil_pitch = 6;
-  spec.turns_per_coil = 12;
-  TwoPhase t{mesh::build(g, {2}, {0.5}), mesh::lay_out(spec, g.stator), {}, {}};
+  TwoPhase t{mesh::build(g, {2}, {0.5}), mesh::lay_out(testing::winding_spec(2, 4, 2, 6, 12), g.stator), {}, {}};
   t.fields = solver::solve_phase_fields(t.mesh, t.winding, {3000, 3000, 3000});
   t.inductance = solver::inductance_matrix(t.mesh, t.winding, t.fields, 0.06);
   return t;
