@@ -7,6 +7,7 @@
 #include <numbers>
 #include <string>
 
+#include "support/winding_spec.hpp"
 #include "app/case_validation.hpp"
 
 namespace {
@@ -43,11 +44,7 @@ tf::mesh::Geometry semi_closed_stator() {
 }
 
 tf::mesh::WindingSpec winding(int phases, int poles, int layers, int pitch, int paths = 1) {
-  tf::mesh::WindingSpec w;
-  w.n_phases = phases;
-  w.n_poles = poles;
-  w.n_layers = layers;
-  w.coil_pitch = pitch;
+  tf::mesh::WindingSpec w = tf::testing::winding_spec(phases, poles, layers, pitch, 1);
   w.parallel_paths = paths;
   return w;
 }
