@@ -9,23 +9,12 @@
 namespace tf::app {
 namespace {
 
-bool in_range(double v, const RealRange& r) {
-  const bool too_low = r.min_excluded ? v <= r.min : v < r.min;
-  const bool too_high = r.max_excluded ? v >= r.max : v > r.max;
-  return std::isfinite(v) && !too_low && !too_high;
-}
-
 double number(const Fields& f, const toml::node& node, std::string_view key, const std::string& index,
               const RealRange& range) {
-  double v = 0.0;
-  if (const auto* i = node.as_integer())
-    v = static_cast<double>(i->get());
-  else if (const auto* x = node.as_floating_point())
-    v = x->get();
-  else
-    f.fail_at(node, key, index, "not a number", describe(range));
-  if (!in_range(v, range)) f.fail_at(node, key, index, "out of range", describe(range));
-  return v;
+  const std::optional<double> v = number_value(node);
+  if (!v) f.fail_at(node, key, index, "not a number", describe(range));
+  if (!std::isfinite(*v) || !within(*v, range)) f.fail_at(node, key, index, "out of range", describe(range));
+  return *v;
 }
 
 int whole(const Fields& f, const toml::node& node, std::string_view key, const std::string& index, long long lo,

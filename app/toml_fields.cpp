@@ -249,20 +249,26 @@ void Fields::fail_at(const toml::node& node, std::string_view key, std::string_v
   app::fail(*doc_, at, value.empty() ? subject : subject + " = " + value, problem, expected);
 }
 
+std::optional<double> number_value(const toml::node& node) {
+  if (const auto* i = node.as_integer()) return static_cast<double>(i->get());
+  if (const auto* f = node.as_floating_point()) return f->get();
+  return std::nullopt;
+}
+
+bool within(double v, const RealRange& range) {
+  const bool too_low = range.min_excluded ? v <= range.min : v < range.min;
+  const bool too_high = range.max_excluded ? v >= range.max : v > range.max;
+  return !too_low && !too_high;
+}
+
 double Fields::real(std::string_view key, const RealRange& range) const {
   const std::string expected = describe(range);
   const toml::node& node = required(key, expected);
-  double v = 0.0;
-  if (const auto* i = node.as_integer())
-    v = static_cast<double>(i->get());
-  else if (const auto* f = node.as_floating_point())
-    v = f->get();
-  else
-    fail(key, "found " + type_name(node), expected);
+  const std::optional<double> value = number_value(node);
+  if (!value) fail(key, "found " + type_name(node), expected);
+  const double v = *value;
   if (!std::isfinite(v)) fail(key, "not a finite number", expected);
-  const bool too_low = range.min_excluded ? v <= range.min : v < range.min;
-  const bool too_high = range.max_excluded ? v >= range.max : v > range.max;
-  if (too_low || too_high) fail(key, "out of range", expected);
+  if (!within(v, range)) fail(key, "out of range", expected);
   return v;
 }
 

@@ -44,6 +44,11 @@ std::string describe(const RealRange& range);
 /// "an integer from 3 to 2000", "an integer >= 1".
 std::string describe(const IntRange& range);
 
+/// The value of an integer or floating-point node; nothing for any other type.
+std::optional<double> number_value(const toml::node& node);
+/// Whether v lies within the range's bounds (finiteness is the caller's check).
+bool within(double v, const RealRange& range);
+
 /// Levenshtein distance: the fewest single-character insertions, deletions and substitutions.
 std::size_t edit_distance(std::string_view a, std::string_view b);
 

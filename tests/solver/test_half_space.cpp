@@ -11,6 +11,7 @@
 #include "post/eddy_quantities.hpp"
 #include "solver/assemble.hpp"
 #include "solver/eddy.hpp"
+#include "support/conducting_wall.hpp"
 #include "support/polar_mesh.hpp"
 
 using namespace tf;
@@ -42,12 +43,7 @@ TEST_CASE("half-space: |H| falls as e^(-x/delta) and the loss per area is H0^2 /
                                                  {r_wall + wall, 100, mesh::RegionKind::stator_iron, "wall"},
                                                  {3.0, 20, mesh::RegionKind::outer_air, "outside"}},
                                            512);
-  solver::Materials mat;
-  mat.stator_iron_mu_r = 1.0;
-  mat.stator_iron_sigma = sigma;
-  mesh::Winding none;
-  none.spec.n_phases = 1;
-  solver::EddySystem s = solver::assemble_eddy(m, none, mat);
+  auto [mat, s] = testing::conductor_system(m, sigma);
   const double wire_area = mesh::region_areas(m)[0];
   s.unit_loads.resize(s.dofs.n_dofs, 2);
   s.unit_loads.col(0) = solver::region_current_load(m, s.dofs, {current / wire_area, 0, 0, 0, 0});

@@ -10,6 +10,7 @@
 #include "post/eddy_quantities.hpp"
 #include "solver/assemble.hpp"
 #include "solver/eddy.hpp"
+#include "support/conducting_wall.hpp"
 #include "support/polar_mesh.hpp"
 
 using namespace tf;
@@ -47,12 +48,7 @@ double fe_resistance_ratio(double a, double delta, int rings) {
                                           {a, 3 * rings / 4, mesh::RegionKind::stator_iron, "wire skin"},
                                           {10 * a, 40, mesh::RegionKind::outer_air, "air"}},
                                       192);
-  solver::Materials mat;
-  mat.stator_iron_mu_r = 1.0;
-  mat.stator_iron_sigma = sigma;
-  mesh::Winding none;
-  none.spec.n_phases = 1;
-  solver::EddySystem s = solver::assemble_eddy(m, none, mat);
+  auto [mat, s] = testing::conductor_system(m, sigma);
   s.unit_loads = solver::region_current_load(m, s.dofs, {1.0, 1.0, 0.0});  // J_s = 1 A/m^2 in the wire
   solver::EddyStats stats;
   const auto sol = solver::solve_eddy(m, s, {Complex(1.0, 0.0)}, omega / (2 * kPi), {0.0}, stats);
