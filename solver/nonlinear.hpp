@@ -1,0 +1,99 @@
+#pragma once
+// Nonlinear magnetostatics K(a) a = f on first-order triangles: reluctivity nu(B^2) per triangle
+// from a B-H curve in iron, constant elsewhere, solved by Newton-Raphson with the consistent
+// (symmetric) Jacobian and a line search on the energy functional.
+//
+// Shapes and units: a and f are #dofs vectors (A_z [Wb/m], loads [A]) in the numbering of the
+// DofMap given last; A = 0 at fixed nodes. B^2 [T^2], co-energy per metre of length [J/m].
+
+#include <optional>
+#include <vector>
+
+#include <Eigen/Core>
+#include <Eigen/SparseCore>
+
+#include "mesh/mesh.hpp"
+#include "solver/bh_curve.hpp"
+#include "solver/dofs.hpp"
+#include "solver/spd_solver.hpp"
+
+namespace tf::solver {
+
+/// The material of one region: a constant reluctivity nu [m/H], or a B-H curve (wins when set;
+/// not owned: it must outlive the solver).
+struct RegionLaw {
+  double nu = 0.0;
+  const BhCurve* curve = nullptr;
+};
+
+struct NewtonControls {
+  double tolerance = 1e-8;  ///< relative, on both the residual (to ||f||) and the update (to ||a||)
+  int max_iterations = 40;
+};
+
+struct NewtonReport {
+  int iterations = 0;      ///< Newton steps taken (1 for a linear problem: one factorization, one solve)
+  double residual = 0.0;   ///< ||K(a) a - f|| at the returned a
+  double update = 0.0;     ///< ||a_k - a_k-1|| of the last step
+  bool converged = false;
+  std::vector<double> residuals;  ///< ||K(a) a - f||: [0] at the start, [k] after step k
+  std::vector<double> step_lengths;  ///< line-search factor of each step (1 = full Newton step)
+};
+
+class NonlinearSolver {
+ public:
+  /// laws: indexed like m.regions, every nu > 0. The mesh must outlive the solver.
+  NonlinearSolver(const mesh::Mesh& m, const DofMap& d, std::vector<RegionLaw> laws, NewtonControls controls = {});
+  ~NonlinearSolver();
+  NonlinearSolver(const NonlinearSolver&) = delete;
+  NonlinearSolver& operator=(const NonlinearSolver&) = delete;
+
+  /// A new numbering (e.g. the rotor turned). Same number of unknowns: the symbolic factorization
+  /// is redone with the fill-reducing ordering of the last full analysis, unless that ordering
+  /// fills the new pattern's factor by more than 10 % more, in which case (and when the number of
+  /// unknowns changed) a full analysis searches a new ordering. Forgets the last solution.
+  void set_dofs(const DofMap& d);
+
+  /// Solves K(a) a = f. a: in, the start (warm start from a previous step); out, the last iterate.
+  /// f = 0 gives a = 0 at once. A run that does not converge returns converged = false and
+  /// leaves the last iterate in a; the caller turns that into an error naming the step.
+  /// Throws SolveError when a matrix cannot be factorized.
+  NewtonReport solve(const Eigen::VectorXd& f, Eigen::VectorXd& a);
+
+  /// B^2 [T^2] of every triangle for the potentials a (#dofs), indexed like m.triangles.
+  std::vector<double> triangle_b_squared(const Eigen::VectorXd& a) const;
+
+  /// Solves J x = rhs (#dofs by #columns) with the consistent Jacobian J = dK(a)a/da at the last
+  /// solution: the small-signal (incremental) response, e.g. incremental inductances.
+  Eigen::MatrixXd solve_incremental(const Eigen::MatrixXd& rhs);
+  /// Solves K(nu) x = rhs with the secant reluctivity nu = H/B of every triangle frozen at the
+  /// last solution (frozen permeability), e.g. to split flux linkage between sources.
+  Eigen::MatrixXd solve_frozen(const Eigen::MatrixXd& rhs);
+
+  /// Co-energy per metre, sum over triangles of area * (B H - w(B)) [J/m]; a linear region
+  /// contributes nu B^2 / 2 (equal to its energy).
+  double coenergy(const Eigen::VectorXd& a) const;
+
+ private:
+  enum class Matrix { jacobian, secant };
+  Eigen::VectorXd residual(const Eigen::VectorXd& a, const Eigen::VectorXd& f) const;
+  void assemble(const Eigen::VectorXd& a, Matrix kind);
+  double line_search(const Eigen::VectorXd& a, const Eigen::VectorXd& f, const Eigen::VectorXd& step,
+                     const Eigen::VectorXd& r0, Eigen::VectorXd& r) const;
+  Eigen::MatrixXd solve_with(Matrix kind, const Eigen::MatrixXd& rhs);
+
+  struct Element;
+  const mesh::Mesh& mesh_;
+  std::vector<RegionLaw> laws_;
+  NewtonControls controls_;
+  std::vector<Element> elements_;
+  int n_dofs_ = 0;
+  Eigen::SparseMatrix<double> matrix_;  ///< fixed pattern; values overwritten by assemble()
+  SpdSolver cholesky_;
+  double analysed_fill_ = 0.0;  ///< nonzeros of L with the ordering of the last full analysis
+  bool linear_ = true;
+  Eigen::VectorXd last_solution_;
+  std::optional<Matrix> factorized_;  ///< what the Cholesky factor holds, at last_solution_
+};
+
+}  // namespace tf::solver
