@@ -133,3 +133,16 @@ TEST_CASE("slotted rotor: bars of area width * depth, open and closed slots") {
     CHECK(area[air] == doctest::Approx(28 * (w * g.rotor.slots.bridge - segment)).epsilon(1e-3).scale(0));
   }
 }
+
+TEST_CASE("sliding_multiple: a smooth rotor's sliding circle becomes a multiple of it; 1 changes nothing") {
+  const mesh::Geometry g = testing::open_slot_stator();
+  const mesh::Mesh plain = mesh::build(g, {2}, {.fineness = 0.5});
+  const mesh::Mesh stepped = mesh::build(g, {2}, {.fineness = 0.5, .sliding_multiple = 25});
+  const auto n_plain = plain.sliding.rotor_nodes.size(), n_stepped = stepped.sliding.rotor_nodes.size();
+  CHECK(n_stepped % 25 == 0);
+  // The smallest count per slot at least the plain one: 36 per_slot divisible by 25 means per_slot
+  // a multiple of 25, the first one at or above the plain count.
+  const std::size_t per_slot = n_plain / 36;
+  CHECK(n_stepped == 36 * (25 * ((per_slot + 24) / 25)));
+  testing::check_sliding_circle(g, stepped);
+}
