@@ -102,6 +102,16 @@ TEST_CASE("surface-magnet rotor with magnets spanning the full pole pitch: no ai
   CHECK(count_regions(m, mesh::RegionKind::rotor_air) == 0);
 }
 
+TEST_CASE("two-pole magnet rotor: two sectors of half a turn, a node count divisible by four") {
+  mesh::Geometry g = testing::semi_closed_stator();
+  g.rotor.kind = mesh::RotorKind::surface_magnet;
+  g.rotor.magnets = {.n_poles = 2, .thickness = 0.005, .arc = 0.75 * kPi, .direction = mesh::Magnetization::radial};
+  const mesh::Mesh m = mesh::build(g, {2}, {.fineness = 0.5});
+  check_sliding(g, m, 4, 1);  // two sectors whose arcs are drawn in two halves each
+  check_numbering(m, mesh::RegionKind::magnet, 2);
+  CHECK(count_regions(m, mesh::RegionKind::rotor_air) == 1);
+}
+
 TEST_CASE("slotted rotor: bars of area width * depth, open and closed slots") {
   mesh::Geometry g = testing::open_slot_stator();
   g.rotor.kind = mesh::RotorKind::slotted;
