@@ -14,6 +14,7 @@ namespace {
 
 constexpr double kDeg = 180.0 / 3.14159265358979323846;
 const char* kSupplyKinds[] = {"balanced", "phasors", "stepped_dc", "split_phase"};
+const char* kRotorKinds[] = {"none", "iron", "surface_magnet", "slotted"};  // in mesh::RotorKind order
 const char* kElements[] = {"resistor", "inductor", "capacitor"};
 
 nlohmann::json supply_json(const solver::Supply& s) {
@@ -96,7 +97,7 @@ std::string case_to_json(const Case& c) {
       {"stack_length_m", c.stack_length},
       {"stator", stator_json(c.geometry.stator)},
       {"rotor",
-       {{"kind", r.kind == mesh::RotorKind::iron ? "iron" : "none"},
+       {{"kind", kRotorKinds[static_cast<int>(r.kind)]},
         {"outer_radius_m", r.outer_radius},
         {"shaft_radius_m", r.shaft_radius},
         {"sleeve_thickness_m", r.sleeve_thickness},

@@ -3,41 +3,53 @@
 #include <algorithm>
 #include <cmath>
 #include <numbers>
+#include <numeric>
 #include <sstream>
 
 #include "mesh/gmsh_session.hpp"
 #include "mesh/replicate.hpp"
+#include "mesh/rotor_shapes.hpp"
 #include "mesh/sector.hpp"
 
 namespace tf::mesh {
 namespace {
 
 constexpr double kPi = std::numbers::pi;
-// The rotor is meshed as one sector and copied round like the stator: the more sectors, the less
-// Gmsh has to mesh (measured: a quarter rotor took 1.4 s of a 2.7 s run at 100k unknowns). The
-// copies meet at the centre, so the apex angle 360°/n is kept at 10° or more.
-constexpr int kMostRotorSectors = 36;
 
-/// The largest divisor of n_slots not above kMostRotorSectors: it divides the sliding-circle node count.
-int rotor_sectors(int n_slots) {
-  for (int r = std::min(n_slots, kMostRotorSectors); r > 1; --r)
-    if (n_slots % r == 0) return r;
-  return n_slots;
+/// The smallest number of sliding-circle nodes per slot, at least `least`, that makes the node
+/// count a multiple of every rotor sector's share (the rotor arcs carry equal segments) and of the
+/// requested multiple. Arcs of half a turn are drawn in two halves, so their sectors need an even
+/// number of segments: two stator sectors an even count per slot, two rotor sectors a count
+/// divisible by four.
+int nodes_per_slot(int least, int n_slots, int n_rotor, int sliding_multiple) {
+  int multiple = std::lcm(n_rotor, std::max(1, sliding_multiple));
+  if (n_rotor == 2) multiple = std::lcm(multiple, 4);
+  for (int per_slot = least;; ++per_slot) {
+    if (n_slots == 2 && per_slot % 2 != 0) continue;
+    if ((static_cast<long>(n_slots) * per_slot) % multiple == 0) return per_slot;
+  }
+}
+
+/// The narrowest part of a slotted rotor [m]: its bars (the openings and bridges lie at the
+/// surface, where the gap's fine elements reach). Smooth and magnet rotors: no limit.
+double rotor_narrowest(const RotorGeometry& r) {
+  return r.kind == RotorKind::slotted ? r.slots.width : 1e30;
 }
 
 /// The narrowest part of the stator that elements far from the gap must still resolve [m]: a slot;
 /// a salient pole's body or coil side; a slotless stator's winding annulus, the conductor sectors
 /// and the air between them at the bore, and its iron ring (but no finer than the air gap, so that
-/// a very thin ring does not make the whole mesh as fine as itself).
+/// a very thin ring does not make the whole mesh as fine as itself); and a slotted rotor's bars.
 double narrowest_part(const Geometry& g) {
   const StatorGeometry& s = g.stator;
-  if (s.kind == StatorKind::salient) return std::min(s.poles.body_width, s.poles.coil_width);
-  if (s.kind == StatorKind::slotted) return s.slot.width;
+  if (s.kind == StatorKind::salient)
+    return std::min({s.poles.body_width, s.poles.coil_width, rotor_narrowest(g.rotor)});
+  if (s.kind == StatorKind::slotted) return std::min(s.slot.width, rotor_narrowest(g.rotor));
   const double pitch_angle = 2 * kPi / s.n_slots;
   const double conductor = 2 * s.bore_radius * std::sin(0.5 * s.belts.span);
   const double air = 2 * s.bore_radius * std::sin(0.5 * (pitch_angle - s.belts.span));
   const double ring = std::max(s.outer_radius - s.belts.outer_radius, g.gap_length());
-  return std::min({s.belts.outer_radius - s.bore_radius, conductor, air, ring});
+  return std::min({s.belts.outer_radius - s.bore_radius, conductor, air, ring, rotor_narrowest(g.rotor)});
 }
 
 }  // namespace
@@ -79,11 +91,10 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
     return std::min(cap, h.gap + h.grading * away);
   };
   const int n_slots = g.stator.n_slots;
-  int per_slot = std::max(2, static_cast<int>(std::ceil(2 * kPi * r_slide / n_slots / h.gap)));
-  // Two slots (poles) make sectors of half a turn, whose sliding arcs are drawn in two halves.
-  if (n_slots == 2) per_slot += per_slot % 2;
+  const int n_rotor = detail::rotor_sector_count(g);
+  const int per_slot = nodes_per_slot(std::max(2, static_cast<int>(std::ceil(2 * kPi * r_slide / n_slots / h.gap))),
+                                      n_slots, n_rotor, c.sliding_multiple);
   const int n_sliding = n_slots * per_slot;
-  const int n_rotor = rotor_sectors(n_slots);
   // A runaway fineness would exhaust memory or time; refuse before Gmsh starts.
   const double gap_triangles = 2.0 * n_sliding * g.gap_length() / h.gap;
   if (gap_triangles > 4e6) {
@@ -97,8 +108,8 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
   detail::GmshSession session;
   if (!g.stator.open_boundary) {
     const detail::SectorMesh stator = detail::mesh_stator_sector(g, layers, per_slot, size);
-    const detail::SectorMesh rotor =
-        detail::mesh_rotor_sector(g, n_rotor, stator.start_angle, n_sliding / n_rotor, size);
+    const double rotor_start = detail::rotor_start_angle(g, stator.start_angle, n_sliding, n_rotor);
+    const detail::SectorMesh rotor = detail::mesh_rotor_sector(g, n_rotor, rotor_start, n_sliding / n_rotor, size);
     return detail::replicate(g, stator, n_slots, rotor, n_rotor);
   }
   // Open boundary: the boundary arc and its exterior image's arc are divided alike, so that their
@@ -111,7 +122,8 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
     return std::min(0.25 * r_b, rim + 0.3 * (r_b - std::hypot(x, y)));
   };
   const detail::SectorMesh stator = detail::mesh_stator_sector(g, layers, per_slot, size, per_arc);
-  const detail::SectorMesh rotor = detail::mesh_rotor_sector(g, n_rotor, stator.start_angle, n_sliding / n_rotor, size);
+  const double rotor_start = detail::rotor_start_angle(g, stator.start_angle, n_sliding, n_rotor);
+  const detail::SectorMesh rotor = detail::mesh_rotor_sector(g, n_rotor, rotor_start, n_sliding / n_rotor, size);
   const detail::SectorMesh image = detail::mesh_exterior_image(g, per_arc, image_size);
   return detail::replicate(g, stator, n_slots, rotor, n_rotor, &image);
 }

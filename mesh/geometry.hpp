@@ -67,15 +67,52 @@ struct SlotLayers {
 };
 
 enum class RotorKind {
-  none,  ///< no rotor: the bore is filled with air
-  iron,  ///< smooth solid iron cylinder on a shaft
+  none,            ///< no rotor: the bore is filled with air
+  iron,            ///< smooth solid iron cylinder on a shaft
+  surface_magnet,  ///< iron cylinder carrying arc-shaped permanent magnets on its surface
+  slotted,         ///< iron cylinder with bar slots (a squirrel cage) under its surface
+};
+
+/// How the magnets of a surface-magnet rotor are magnetized.
+enum class Magnetization {
+  radial,    ///< along the radius through each point of the magnet
+  parallel,  ///< everywhere along the radius through the pole centre (uniform in each magnet)
+};
+
+/// Arc magnets glued on the rotor iron. Pole k (1-based) is centred at the angle 2*pi*(k - 1)/n_poles,
+/// so pole 1 faces slot 1 (on the +x axis) when the rotor has not turned. Odd poles are north:
+/// magnetized outwards (towards the gap); even poles south, inwards. The magnets' outer surface is
+/// the rotor's outer_radius; the iron runs to outer_radius - thickness. Between neighbouring
+/// magnets lies air (RegionKind::rotor_air).
+struct SurfaceMagnets {
+  int n_poles = 0;         ///< 2p, even
+  double thickness = 0.0;  ///< radial thickness of each magnet [m]
+  double arc = 0.0;        ///< angle spanned by one magnet [rad], 0 < arc <= pole pitch 2*pi/n_poles
+  Magnetization direction = Magnetization::radial;
+};
+
+/// Bar slots of a squirrel-cage rotor, bar k (1-based) centred on the radius at angle
+/// 2*pi*(k - 1)/count. Each bar is a parallel-sided rectangle (width by depth, area width * depth)
+/// whose flat top lies `bridge` below the rotor surface, measured on its centre line. Closed slots
+/// (opening_width = 0) leave an iron bridge of that thickness over the bar; open slots cut a
+/// parallel-sided opening of opening_width through it, from the bar top to the gap (air,
+/// RegionKind::rotor_air). In magnetostatics the bars carry no current.
+struct RotorSlots {
+  int count = 0;               ///< number of bars N
+  double width = 0.0;          ///< bar width [m]
+  double depth = 0.0;          ///< radial depth of the bar [m]
+  double bridge = 0.0;         ///< rotor surface to bar top on the centre line [m], > 0
+  double opening_width = 0.0;  ///< [m]; 0 for a closed slot, else below width
 };
 
 struct RotorGeometry {
   RotorKind kind = RotorKind::iron;
-  double outer_radius = 0.0;  ///< [m]; with no rotor, the inner edge of the gap band that is sampled
+  double outer_radius = 0.0;  ///< [m]; with no rotor, the inner edge of the gap band that is sampled;
+                              ///< with surface magnets, the magnets' outer surface
   double shaft_radius = 0.0;  ///< [m]; 0 for no separate shaft
   double sleeve_thickness = 0.0;  ///< [m]; a conducting sleeve on the iron rotor's surface, 0 for none
+  SurfaceMagnets magnets;     ///< surface_magnet rotors only
+  RotorSlots slots;           ///< slotted rotors only
 };
 
 struct Geometry {
@@ -95,6 +132,9 @@ struct MeshControls {
   /// knows the frequencies sets skin_depth.
   double elements_per_skin_depth = 0.0;
   double skin_depth = 0.0;
+  /// The node count of the sliding circle is made a multiple of this: a rotor-position study
+  /// stepping by a given angle needs that step to be a whole number of node pitches.
+  int sliding_multiple = 1;
 };
 
 }  // namespace tf::mesh

@@ -25,12 +25,16 @@ enum class RegionKind {
   bore_air,  ///< air filling the bore when there is no rotor
   rotor_sleeve,  ///< a conducting sleeve on the rotor surface
   outer_air,     ///< air outside the stator, out to the boundary radius
+  magnet,        ///< one permanent magnet of a surface-magnet rotor; slot = its pole number
+  rotor_air,     ///< air in the rotor: between surface magnets, or a rotor bar's slot opening
+  rotor_bar,     ///< one bar of a squirrel-cage rotor; slot = its bar number
 };
 
 struct Region {
   std::string name;  ///< readable and unique, e.g. "slot_07_layer_2"
   RegionKind kind = RegionKind::stator_iron;
-  int slot = 0;   ///< 1-based slot (salient stator: pole) number for coil sides and slot openings, else 0
+  int slot = 0;   ///< 1-based slot (salient stator: pole) number for coil sides and slot openings;
+                  ///< the rotor pole of a magnet, the bar number of a rotor bar; else 0
   int layer = 0;  ///< 1-based layer for coil regions (1 nearest the gap, or counter-clockwise side by side), else 0
 };
 

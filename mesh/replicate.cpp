@@ -7,6 +7,8 @@
 #include <numeric>
 #include <string>
 
+#include "mesh/rotor_shapes.hpp"
+
 namespace tf::mesh::detail {
 namespace {
 
@@ -86,10 +88,15 @@ void join_cuts(const Copies& c, NodeSets& sets, double tolerance) {
 /// Names of per-slot regions: "slot_07_layer_2", "slot_07_opening", "pole_03_coil_1" on a
 /// salient-pole stator, "sector_3_layer_1" for a conductor sector of a slotless one. Numbers are
 /// padded to the width of the largest, so names sort in order.
+std::string padded(int number, int largest) {
+  const int digits = static_cast<int>(std::to_string(largest).size());
+  std::string text = std::to_string(number);
+  text.insert(0, std::max(0, digits - static_cast<int>(text.size())), '0');
+  return text;
+}
+
 std::string slot_region_name(StatorKind stator, int slot, int n_slots, const PieceKind& kind) {
-  const int digits = static_cast<int>(std::to_string(n_slots).size());
-  std::string number = std::to_string(slot);
-  number.insert(0, std::max(0, digits - static_cast<int>(number.size())), '0');
+  const std::string number = padded(slot, n_slots);
   if (stator == StatorKind::salient) return "pole_" + number + "_coil_" + std::to_string(kind.layer);
   if (stator == StatorKind::slotless) return "sector_" + number + "_layer_" + std::to_string(kind.layer);
   if (kind.kind == RegionKind::coil) return "slot_" + number + "_layer_" + std::to_string(kind.layer);
@@ -108,9 +115,18 @@ std::string region_name(StatorKind stator, const PieceKind& kind, bool rotor_sid
     // Shared slot air belongs to two neighbours: the air between two salient poles, or between two
     // conductor sectors of a slotless stator.
     case RegionKind::slot_air: return stator == StatorKind::slotless ? "winding_air" : "interpolar_air";
-    default: return "?";
+    case RegionKind::rotor_air: return "rotor_air";
+    // Per pole or per bar: named by rotor_region_name.
+    case RegionKind::magnet: return "magnet";
+    case RegionKind::rotor_bar: return "bar";
+    case RegionKind::coil: return "coil";
   }
+  return "?";
 }
+
+/// Rotor pieces numbered by pole or bar ("magnet_3", "bar_07"): the number of the feature whose
+/// centre is nearest to the triangle, since a sector cut may split a magnet or a bar.
+bool numbered_on_rotor(RegionKind kind) { return kind == RegionKind::magnet || kind == RegionKind::rotor_bar; }
 
 /// Builds the region table as triangles are added. Coil sides are numbered per copy (slot, pole
 /// or conductor sector k, as the winding finds them); so are slot openings, while the air between
@@ -119,6 +135,13 @@ struct RegionTable {
   std::vector<Region>& regions;
   StatorKind stator;
   std::map<std::string, int> by_name;
+  /// A magnet or bar: `number` is its pole or bar number, of n in all.
+  int rotor_index(const PieceKind& kind, int number, int n) {
+    const std::string name = region_name(stator, kind, true) + "_" + padded(number, n);
+    const auto [it, added] = by_name.emplace(name, static_cast<int>(regions.size()));
+    if (added) regions.push_back({name, kind.kind, number, 0});
+    return it->second;
+  }
   int index(const PieceKind& kind, int slot, int n_slots, bool rotor_side) {
     const bool per_slot = kind.kind == RegionKind::coil ||
                           (kind.kind == RegionKind::slot_air && stator == StatorKind::slotted);
@@ -191,13 +214,21 @@ Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies,
   m.triangles.resize(n_tri, 3);
   m.triangle_region.resize(n_tri);
   RegionTable table{m.regions, g.stator.kind, {}};
+  const int n_rotor_features =
+      g.rotor.kind == RotorKind::surface_magnet ? g.rotor.magnets.n_poles : g.rotor.slots.count;
   int t = 0;
   for (const Copies* c : {&sc, &rc, &ic})
     for (int k = 0; k < c->n_copies; ++k)
       for (int e = 0; e < c->sector->triangles.rows(); ++e, ++t) {
         for (int j = 0; j < 3; ++j) m.triangles(t, j) = new_id[sets.find(c->id(k, c->sector->triangles(e, j)))];
         const PieceKind& kind = c->sector->pieces[c->sector->triangle_piece[e]];
-        m.triangle_region(t) = table.index(kind, k + 1, n_stator_copies, c == &rc);
+        if (c == &rc && numbered_on_rotor(kind.kind)) {
+          Eigen::Vector2d centre = Eigen::Vector2d::Zero();
+          for (int j = 0; j < 3; ++j) centre += m.nodes.row(m.triangles(t, j)).transpose() / 3.0;
+          m.triangle_region(t) = table.rotor_index(kind, rotor_feature_number(g.rotor, centre), n_rotor_features);
+        } else {
+          m.triangle_region(t) = table.index(kind, k + 1, n_stator_copies, c == &rc);
+        }
       }
 
   const double angle_tolerance = 1e-6;

@@ -8,6 +8,7 @@
 
 #include <gmsh.h>
 
+#include "mesh/rotor_shapes.hpp"
 #include "mesh/salient_shapes.hpp"
 #include "mesh/sector_shapes.hpp"
 #include "mesh/slotless_shapes.hpp"
@@ -166,6 +167,8 @@ std::vector<Piece> build_image_pieces(const Geometry& g) {
 
 std::vector<Piece> build_rotor_pieces(const Geometry& g, double a0, double a1) {
   const RotorGeometry& r = g.rotor;
+  if (r.kind == RotorKind::surface_magnet) return build_magnet_rotor_pieces(g, a0, a1);
+  if (r.kind == RotorKind::slotted) return build_slotted_rotor_pieces(g, a0, a1);
   std::vector<Piece> rings;
   // An iron rotor's iron ends where its sleeve (if any) begins; a shaft may sit inside the iron.
   const double iron_outer = r.outer_radius - r.sleeve_thickness;

@@ -33,7 +33,8 @@ std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& laye
 /// The exterior image: a pie sector of radius boundary_radius centred on the +x axis, one slot pitch wide.
 std::vector<Piece> build_image_pieces(const Geometry& g);
 
-/// The rotor sector between angles a0 and a1, from the centre to the sliding circle.
+/// The rotor sector between angles a0 and a1, from the centre to the sliding circle (magnet and
+/// slotted rotors: mesh/rotor_shapes.hpp).
 std::vector<Piece> build_rotor_pieces(const Geometry& g, double a0, double a1);
 
 /// Fragments the pieces with one more shape so that all interfaces are conformal; labels follow.

@@ -23,8 +23,17 @@ double relative_permeability(const mesh::Region& r, const Materials& mat) {
     case mesh::RegionKind::rotor_iron: return mat.rotor_iron_mu_r;
     case mesh::RegionKind::shaft: return mat.shaft_mu_r;
     case mesh::RegionKind::rotor_sleeve: return mat.sleeve_mu_r;
-    default: return 1.0;  // coils, slot air, gap, bore air
+    case mesh::RegionKind::magnet: return mat.magnet_mu_rec;
+    // Air and copper or aluminium: the permeability of free space.
+    case mesh::RegionKind::coil:
+    case mesh::RegionKind::slot_air:
+    case mesh::RegionKind::gap:
+    case mesh::RegionKind::bore_air:
+    case mesh::RegionKind::outer_air:
+    case mesh::RegionKind::rotor_air:
+    case mesh::RegionKind::rotor_bar: return 1.0;
   }
+  return 1.0;
 }
 
 }  // namespace

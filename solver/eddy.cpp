@@ -51,7 +51,9 @@ std::vector<double> region_conductivity(const mesh::Mesh& m, const Materials& ma
       case mesh::RegionKind::rotor_iron: sigma.push_back(mat.rotor_iron_sigma); break;
       case mesh::RegionKind::shaft: sigma.push_back(mat.shaft_sigma); break;
       case mesh::RegionKind::rotor_sleeve: sigma.push_back(mat.sleeve_sigma); break;
-      default: sigma.push_back(0.0);  // air, and coils, whose current is given
+      // Air, coils (whose current is given), magnets (taken as non-conducting) and rotor bars: the
+      // motion term here is exact only for smooth rotors, so a cage waits for the slip-frequency method.
+      default: sigma.push_back(0.0);
     }
   }
   return sigma;
