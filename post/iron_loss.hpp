@@ -3,7 +3,7 @@
 // Steinmetz-type law applied per time harmonic and per Cartesian component.
 //
 // The hysteresis law p_h = k_h f B^alpha is C. P. Steinmetz's ("On the law of hysteresis", AIEE
-// Trans. 9, 1892); adding the classical eddy-current term k_e f^2 B^2 and summing both over the time
+// Trans. 9, 1892; from memory); adding the classical eddy-current term k_e f^2 B^2 and summing both over the time
 // harmonics n (frequency n f, amplitude B_n) and over the two Cartesian components separately is a
 // common engineering approximation, not a law: it ignores minor loops, DC bias, and the fact that
 // hysteresis of a rotating field is not the sum of two alternating ones. By this rule a field of

@@ -25,7 +25,7 @@ Eigen::VectorXd balanced_set(int m, double amplitude, double angle) {
 }  // namespace
 
 TEST_CASE("Park transform: a balanced set aligned with d gives constant d and zero q, for 2, 3 and 5 phases") {
-  // The amplitude-invariant transform (R. H. Park, AIEE Trans. 48, 1929) maps a balanced set of
+  // The amplitude-invariant transform (R. H. Park, AIEE Trans. 48, 1929, from memory) maps a balanced set of
   // amplitude X whose vector lies on the d axis to d = X, q = 0 at every rotor angle.
   for (int m : {2, 3, 5}) {
     for (double theta : {0.0, 0.4, 1.3, 2.9, 5.5}) {

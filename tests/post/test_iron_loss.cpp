@@ -1,5 +1,5 @@
 // Iron loss by the per-harmonic, per-component Steinmetz-type rule (C. P. Steinmetz, "On the law of
-// hysteresis", AIEE Trans. 9, 1892, for the hysteresis term; the classical eddy term and the
+// hysteresis", AIEE Trans. 9, 1892, from memory, for the hysteresis term; the classical eddy term and the
 // summation over harmonics and components are common engineering practice). The coefficients are
 // invented, of the order of a 0.35 mm non-oriented steel.
 
