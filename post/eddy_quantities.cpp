@@ -4,6 +4,7 @@
 #include <cmath>
 #include <numbers>
 
+#include "post/arkkio_band.hpp"
 #include "solver/flux_linkage.hpp"
 #include "solver/p1.hpp"
 
@@ -48,18 +49,7 @@ void at_midpoints(const Element& e, double omega, double rotor_speed, F f) {
 }  // namespace
 
 double arkkio_torque(const mesh::Mesh& m, const Eigen::VectorXcd& a, double stack_length) {
-  double sum = 0.0;
-  for (int t = 0; t < m.n_triangles(); ++t) {
-    if (m.regions[m.triangle_region(t)].kind != mesh::RegionKind::gap) continue;
-    const Element e = element(m, a, t);
-    const Eigen::Vector2d c = e.xy.colwise().mean().transpose();
-    const double r = c.norm();
-    const Eigen::Vector2d radial = c / r, tangential(-radial(1), radial(0));
-    const Complex bx = e.grad(1), by = -e.grad(0);
-    const Complex br = radial(0) * bx + radial(1) * by, bt = tangential(0) * bx + tangential(1) * by;
-    sum += e.area * r * 0.5 * std::real(br * std::conj(bt));
-  }
-  return stack_length * sum / (kMu0 * (m.gap_outer_radius - m.gap_inner_radius));
+  return detail::arkkio_band_torque(m, a, stack_length);
 }
 
 std::vector<double> region_losses(const mesh::Mesh& m, const Eigen::VectorXcd& a, const std::vector<double>& sigma,

@@ -45,7 +45,7 @@ void add_tangential(const mesh::Mesh& m, int t, double phi, double weight, int r
 
 }  // namespace
 
-GapOperators gap_operators(const mesh::Mesh& m, int n_points, int max_order) {
+GapOperators gap_operators(const mesh::Mesh& m, int n_points, int max_order, int rotor_shift) {
   const mesh::SlidingCircle& s = m.sliding;
   const int n = static_cast<int>(s.stator_nodes.size());
   const double pitch = kTwoPi / n;
@@ -72,7 +72,8 @@ GapOperators gap_operators(const mesh::Mesh& m, int n_points, int max_order) {
       br.emplace_back(j, s.stator_nodes[(i + 1) % n], w / chord);
       br.emplace_back(j, s.stator_nodes[i], -w / chord);
       add_tangential(m, outside[i], phi, 0.5 * w, j, bt);
-      add_tangential(m, inside[i], phi, 0.5 * w, j, bt);
+      // The rotor-side triangle holds B in the rotor's frame, where this point sits at phi - shift.
+      add_tangential(m, inside[((i - rotor_shift) % n + n) % n], phi - rotor_shift * pitch, 0.5 * w, j, bt);
     }
   }
   g.br.resize(n_points, m.n_nodes());

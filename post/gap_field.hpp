@@ -32,7 +32,9 @@ struct GapOperators {
 /// midpoints. B_theta: the mean of the two triangles' tangential components. Harmonics: B_r,n =
 /// n A_n / r from the discrete Fourier transform of the nodal A on the circle (A is continuous
 /// there; differentiating its series avoids sampling a piecewise-constant B).
-GapOperators gap_operators(const mesh::Mesh& m, int n_points, int max_order);
+/// rotor_shift: the rotor turned by that many node pitches, as in solver::number_dofs; the rotor-side
+/// triangle of rotor chord j then faces stator chord j + rotor_shift (only B_theta reads it).
+GapOperators gap_operators(const mesh::Mesh& m, int n_points, int max_order, int rotor_shift = 0);
 
 /// The harmonics c_n (rows n = 0..max_order) of nodal potentials a (#nodes by #columns).
 Eigen::MatrixXcd gap_harmonics(const GapOperators& g, const Eigen::MatrixXd& a);
