@@ -13,6 +13,8 @@
 #include "app/case_validation.hpp"
 #include "app/input_error.hpp"
 #include "app/read_drive.hpp"
+#include "app/read_materials.hpp"
+#include "app/read_rotor.hpp"
 #include "app/toml_arrays.hpp"
 #include "app/toml_fields.hpp"
 
@@ -22,7 +24,6 @@ namespace {
 // Generous sanity limits: they catch unit slips (mm typed as m), not unusual machines.
 constexpr RealRange radius{.min = 0, .max = 5, .min_excluded = true, .unit = "m"};
 constexpr RealRange slot_size{.min = 0, .max = 1, .min_excluded = true, .unit = "m"};
-constexpr RealRange permeability{.min = 0, .max = 1e6, .min_excluded = true};
 
 Document load(const std::string& path) {
   namespace fs = std::filesystem;
@@ -134,68 +135,6 @@ mesh::StatorGeometry read_stator(const Fields& root) {
   return s;
 }
 
-mesh::RotorGeometry read_rotor(const Fields& root) {
-  const Fields f = root.table("rotor", {"kind", "outer_radius", "shaft_radius", "sleeve_thickness"});
-  mesh::RotorGeometry r;
-  r.kind = f.choice("kind", {"iron", "none"}) == 0 ? mesh::RotorKind::iron : mesh::RotorKind::none;
-  if (r.kind == mesh::RotorKind::none)
-    for (const char* key : {"shaft_radius", "sleeve_thickness"})
-      f.reject(key, "not used without a rotor", "no such key, or kind = \"iron\"");
-  r.outer_radius = f.real("outer_radius", radius);
-  if (r.kind == mesh::RotorKind::iron) {
-    r.shaft_radius = f.real_or("shaft_radius", 0.0, {.min = 0, .max = 5, .unit = "m"});
-    // "Thinner than the rotor outside the shaft" is a consistency check.
-    r.sleeve_thickness = f.real_or("sleeve_thickness", 0.0, {.min = 0, .max = 5, .min_excluded = true, .unit = "m"});
-  }
-  return r;
-}
-
-double read_permeability(const Fields& f) { return f.real("relative_permeability", permeability); }
-
-/// A part's optional conductivity [S/m]: 0 (the default) for laminations and insulators. Only
-/// eddy-current studies use it.
-double read_conductivity(const Fields& f) {
-  return f.real_or("conductivity", 0.0, {.min = 0, .max = 1e9, .unit = "S/m"});
-}
-
-struct Part {
-  double mu_r, sigma;
-};
-
-/// An optional [materials.<part>] table: its permeability and conductivity, each with its default.
-Part read_part(const Fields& materials, std::string_view part, Part defaults) {
-  const auto t = materials.optional_table(part, {"relative_permeability", "conductivity"});
-  if (!t) return defaults;
-  return {t->real_or("relative_permeability", defaults.mu_r, permeability), read_conductivity(*t)};
-}
-
-solver::Materials read_materials(const Fields& root, const mesh::RotorGeometry& rotor) {
-  const Fields f = root.table("materials", {"stator_iron", "rotor_iron", "shaft", "rotor_sleeve"});
-  solver::Materials m;
-  const Fields stator = f.table("stator_iron", {"relative_permeability", "conductivity"});
-  m.stator_iron_mu_r = read_permeability(stator);
-  m.stator_iron_sigma = read_conductivity(stator);
-  // A material for a part that is not there is most likely a leftover of another case.
-  if (rotor.kind == mesh::RotorKind::none) {
-    for (const char* key : {"rotor_iron", "shaft", "rotor_sleeve"})
-      f.reject(key, "not used, since [rotor] kind = \"none\"", "no such table, or [rotor] kind = \"iron\"");
-    return m;
-  }
-  if (rotor.sleeve_thickness <= 0.0)
-    f.reject("rotor_sleeve", "not used, since the rotor has no sleeve",
-             "no such table, or a sleeve given by [rotor] sleeve_thickness");
-  const Part iron = read_part(f, "rotor_iron", {m.rotor_iron_mu_r, m.rotor_iron_sigma});
-  const Part shaft = read_part(f, "shaft", {m.shaft_mu_r, m.shaft_sigma});
-  const Part sleeve = read_part(f, "rotor_sleeve", {m.sleeve_mu_r, m.sleeve_sigma});
-  m.rotor_iron_mu_r = iron.mu_r;
-  m.rotor_iron_sigma = iron.sigma;
-  m.shaft_mu_r = shaft.mu_r;
-  m.shaft_sigma = shaft.sigma;
-  m.sleeve_mu_r = sleeve.mu_r;
-  m.sleeve_sigma = sleeve.sigma;
-  return m;
-}
-
 /// Eddy currents: sinusoidal supplies of given currents, and the rotor speeds to solve at.
 Study read_eddy_study(const Fields& f, const solver::Supply& supply, Study s) {
   if (supply.kind == solver::SupplyKind::stepped_dc || supply.kind == solver::SupplyKind::split_phase)
@@ -209,17 +148,53 @@ Study read_eddy_study(const Fields& f, const solver::Supply& supply, Study s) {
   return s;
 }
 
+/// Rotor-motion studies: the steps, and what turns over them.
+Study read_motion_study(const Fields& f, const solver::Supply& supply, Study s) {
+  constexpr double deg = std::numbers::pi / 180.0;
+  f.reject("rotor_speeds", "used by eddy-current studies only", "no such key, or kind = \"eddy_currents\"");
+  const bool sinusoidal = supply.kind == solver::SupplyKind::balanced || supply.kind == solver::SupplyKind::phasors;
+  if (s.kind != post::StudyKind::cogging && !sinusoidal)
+    f.fail("kind", "a rotor turning under current needs sinusoidal currents given in [supply]",
+           "[supply] kind = \"balanced\" or \"phasors\", or kind = \"cogging\" here");
+  s.n_steps = f.integer_or("steps", s.n_steps, {.min = 2, .max = 100000});
+  s.n_field_files = f.integer_or("field_files", std::min(36, s.n_steps), {.min = 0, .max = 100000});
+  s.n_gap_points = f.integer_or("gap_points", s.n_gap_points, {.min = 720, .max = 1000000});
+  s.max_harmonic = f.integer_or("harmonics", s.max_harmonic, {.min = 1, .max = 500});
+  s.virtual_work = f.boolean_or("virtual_work", true);
+  s.speed = f.real_or("speed_rpm", 0.0, {.min = -1e6, .max = 1e6, .unit = "rpm"}) * 2 * std::numbers::pi / 60.0;
+  if (s.kind == post::StudyKind::synchronous) {
+    for (const char* key : {"rotor_span_deg", "current_angle_deg"})
+      f.reject(key, "not used: the rotor turns with the field over one electrical period",
+               "no such key, or kind = \"rotor_sweep\"");
+    s.load_angle = f.real_or("load_angle_deg", 0.0, {.min = -180, .max = 180, .unit = "electrical degrees"}) * deg;
+    return s;
+  }
+  f.reject("load_angle_deg", "used by synchronous studies only", "no such key, or kind = \"synchronous\"");
+  if (s.kind == post::StudyKind::cogging)
+    f.reject("current_angle_deg", "not used: no current flows in a cogging study", "no such key");
+  else
+    s.current_angle = f.real_or("current_angle_deg", 0.0, {.min = -360, .max = 360, .unit = "electrical degrees"}) * deg;
+  s.rotor_span = f.real("rotor_span_deg", {.min = 0, .max = 360, .min_excluded = true, .unit = "degrees"}) * deg;
+  return s;
+}
+
 Study read_study(const Fields& root, const solver::Supply& supply) {
   Study s;
   // Stepped DC: one step per state.
   const bool states = supply.kind == solver::SupplyKind::stepped_dc;
   if (states) s.n_steps = static_cast<int>(supply.states.size());
   s.n_field_files = std::min(s.n_field_files, s.n_steps);
-  const auto f =
-      root.optional_table("study", {"kind", "rotor_speeds", "steps", "field_files", "gap_points", "harmonics"});
+  const auto f = root.optional_table(
+      "study", {"kind", "rotor_speeds", "steps", "field_files", "gap_points", "harmonics", "load_angle_deg",
+                "rotor_span_deg", "current_angle_deg", "speed_rpm", "virtual_work"});
   if (!f) return s;
-  s.kind = static_cast<post::StudyKind>(f->choice_or("kind", {"phase_angles", "eddy_currents"}, 0));
+  s.kind = static_cast<post::StudyKind>(
+      f->choice_or("kind", {"phase_angles", "eddy_currents", "synchronous", "cogging", "rotor_sweep"}, 0));
   if (s.kind == post::StudyKind::eddy_currents) return read_eddy_study(*f, supply, s);
+  if (post::rotor_turns(s.kind)) return read_motion_study(*f, supply, s);
+  for (const char* key : {"load_angle_deg", "rotor_span_deg", "current_angle_deg", "speed_rpm", "virtual_work"})
+    f->reject(key, "used by studies whose rotor turns only",
+              "no such key, or kind = \"synchronous\", \"cogging\" or \"rotor_sweep\"");
   f->reject("rotor_speeds", "used by eddy-current studies only", "no such key, or kind = \"eddy_currents\"");
   if (states) f->reject("steps", "not used with a stepped DC supply", "no such key: each state is one step");
   s.n_steps = f->integer_or("steps", s.n_steps, {.min = states ? 2 : 3, .max = 100000});
@@ -267,6 +242,21 @@ Case read_case(const std::string& path) {
   // Consistency across keys only once every key has been read in range.
   if (const auto p = case_problem(c)) fail_at_key(doc, p->key, p->what, p->expected);
   return c;
+}
+
+}  // namespace tf::app
+
+namespace tf::app {
+
+void override_steps(Case& c, int steps) {
+  if (c.study.kind == post::StudyKind::eddy_currents || c.supply.kind == solver::SupplyKind::stepped_dc)
+    throw InputError(fmt::format("{}: --steps {}: this study has no steps to change ({})", c.path, steps,
+                                 c.study.kind == post::StudyKind::eddy_currents ? "one solution per rotor speed"
+                                                                               : "one step per DC state"));
+  c.study.n_steps = steps;
+  c.study.n_field_files = std::min(c.study.n_field_files, steps);
+  if (const auto p = case_problem(c))
+    throw InputError(fmt::format("{}: --steps {}: [{}] {}; expected {}", c.path, steps, p->key, p->what, p->expected));
 }
 
 }  // namespace tf::app

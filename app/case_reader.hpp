@@ -14,4 +14,8 @@ namespace tf::app {
 /// describes a geometry or winding that does not fit together. The message names file and line.
 Case read_case(const std::string& path);
 
+/// The case with `steps` steps instead of its own (from the command line), checked again.
+/// Throws InputError for studies without steps to change, or when the new count does not fit.
+void override_steps(Case& c, int steps);
+
 }  // namespace tf::app

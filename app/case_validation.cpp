@@ -286,10 +286,38 @@ double tooth_width(double r, double slot_width, int n_slots) {
   return 2.0 * r * std::sin(std::numbers::pi / n_slots - wall_angle);
 }
 
+/// Magnets and bars must fit in the rotor, leaving iron between them and the shaft.
+std::optional<Problem> rotor_parts_problem(const mesh::RotorGeometry& r) {
+  const double iron = r.outer_radius - r.shaft_radius;
+  if (r.kind == mesh::RotorKind::surface_magnet && r.magnets.thickness >= iron)
+    return Problem{"rotor.magnets.thickness",
+                   fmt::format("the magnets reach the shaft (rotor radius {}, shaft radius {})", mm(r.outer_radius),
+                               mm(r.shaft_radius)),
+                   fmt::format("a thickness below {}", mm(iron))};
+  if (r.kind != mesh::RotorKind::slotted) return std::nullopt;
+  const mesh::RotorSlots& b = r.slots;
+  if (b.bridge + b.depth >= iron)
+    return Problem{"rotor.bars.depth",
+                   fmt::format("bridge and bar reach r = {}, at or inside the shaft (radius {})",
+                               mm(r.outer_radius - b.bridge - b.depth), mm(r.shaft_radius)),
+                   fmt::format("bridge + depth below {}", mm(iron))};
+  const double bottom = r.outer_radius - b.bridge - b.depth;
+  const double pitch = 2 * bottom * std::sin(std::numbers::pi / b.count);
+  if (b.width >= pitch)
+    return Problem{"rotor.bars.width",
+                   fmt::format("the bars touch at their bottom, where the bar pitch is {}", mm(pitch)),
+                   fmt::format("a width below {}", mm(pitch))};
+  if (b.opening_width >= b.width)
+    return Problem{"rotor.bars.opening", fmt::format("the opening is as wide as the bar ({})", mm(b.width)),
+                   fmt::format("an opening below {}, or 0 for closed slots", mm(b.width))};
+  return std::nullopt;
+}
+
 std::optional<Problem> geometry_problem(const mesh::Geometry& geometry) {
   if (auto p = stator_problem(geometry.stator)) return p;
   if (auto p = boundary_problem(geometry.stator)) return p;
-  return rotor_problem(geometry);
+  if (auto p = rotor_problem(geometry)) return p;
+  return rotor_parts_problem(geometry.rotor);
 }
 
 namespace {
@@ -366,9 +394,47 @@ std::optional<Problem> study_problem(const Study& study) {
   return std::nullopt;
 }
 
+std::optional<Problem> motion_problem(const Case& c) {
+  const Study& s = c.study;
+  if (s.kind == post::StudyKind::eddy_currents)
+    for (const auto& [part, bh] : {std::pair{"stator_iron", &c.materials.stator_iron_bh},
+                                   std::pair{"rotor_iron", &c.materials.rotor_iron_bh}})
+      if (*bh)
+        return Problem{fmt::format("materials.{}.bh_curve", part),
+                       "a B-H curve in an eddy-current study, which is linear (time-harmonic)",
+                       "relative_permeability for eddy-current studies"};
+  if (c.supply.kind == solver::SupplyKind::split_phase && (c.materials.stator_iron_bh || c.materials.rotor_iron_bh))
+    return Problem{"supply.kind", "a split-phase circuit is solved with linear iron, but the case gives a B-H curve",
+                   "relative_permeability for the iron, or another supply"};
+  if (c.geometry.rotor.kind == mesh::RotorKind::surface_magnet && s.kind == post::StudyKind::synchronous &&
+      c.geometry.rotor.magnets.n_poles != c.winding.n_poles)
+    return Problem{"rotor.magnets.poles",
+                   fmt::format("{} magnet poles under a {}-pole winding: no steady torque to turn with",
+                               c.geometry.rotor.magnets.n_poles, c.winding.n_poles),
+                   fmt::format("{} poles, as the winding", c.winding.n_poles)};
+  if (!post::rotor_turns(s.kind)) return std::nullopt;
+  if (c.geometry.rotor.kind == mesh::RotorKind::none)
+    return Problem{"study.kind", "the study turns the rotor, but [rotor] kind = \"none\"",
+                   "a rotor, or kind = \"phase_angles\""};
+  if (s.kind == post::StudyKind::synchronous) return std::nullopt;
+  // Each step must turn the rotor by a whole number of sliding-circle pitches, so the steps must
+  // divide a whole turn: 360° * steps / span must be a whole number.
+  const double per_turn = 360.0 * s.n_steps / (s.rotor_span * 180.0 / std::numbers::pi);
+  if (std::abs(per_turn - std::round(per_turn)) > 1e-6 * per_turn)
+    return Problem{"study.rotor_span_deg",
+                   fmt::format("{} steps over {:.6g} degrees do not divide a whole turn evenly", s.n_steps,
+                               s.rotor_span * 180.0 / std::numbers::pi),
+                   "a span for which 360 * steps / span is a whole number (e.g. 360/p or 360/LCM(Q, 2p))"};
+  if (per_turn > 200000)
+    return Problem{"study.rotor_span_deg", fmt::format("steps {:.6g} thousandths of a degree apart", 360e3 / per_turn),
+                   "a rotor step of at least 0.0018 degrees (fewer steps or a wider span)"};
+  return std::nullopt;
+}
+
 std::optional<Problem> case_problem(const Case& c) {
   if (auto p = geometry_problem(c.geometry)) return p;
   if (auto p = winding_problem(c.winding, c.geometry.stator)) return p;
+  if (auto p = motion_problem(c)) return p;
   return study_problem(c.study);
 }
 

@@ -55,7 +55,8 @@ void compare_cases(const std::vector<Case>& cases, const fs::path& out_dir, int 
   std::set<std::string> names;
   for (const auto& c : cases)
     if (c.study.kind != post::StudyKind::phase_angles)
-      throw InputError(fmt::format("{}: compare tabulates phase-angle studies; this case studies eddy currents", c.path));
+      throw InputError(fmt::format("{}: compare tabulates phase-angle studies; this case's study is {}", c.path,
+                                   post::study_kind_name(c.study.kind)));
   for (const auto& c : cases)
     if (!names.insert(stem(c)).second)
       throw InputError(fmt::format("{}: two cases are named '{}'; their result folders would clash", c.path, stem(c)));

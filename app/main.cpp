@@ -13,6 +13,7 @@
 #include "app/case_reader.hpp"
 #include "app/compare.hpp"
 #include "app/eddy_run.hpp"
+#include "app/motion_run.hpp"
 #include "app/input_error.hpp"
 #include "app/run_case.hpp"
 #include "app/winding_report.hpp"
@@ -57,6 +58,7 @@ int main(int argc, char** argv) {
   bool as_json = false, all_steps = false;
   double fineness = 0.0;  // 0: as the case file says
   int field_files = -1;   // -1: as the case file says
+  int steps = 0;          // 0: as the case file says
 
   auto* check = cli.add_subcommand("check", "validate a case file without solving");
   check->add_option("CASE", case_path, "case file (TOML)")->required();
@@ -74,6 +76,8 @@ int main(int argc, char** argv) {
   run->add_option("--field-files", field_files, "override the number of steps written as VTU files (0: none)")
       ->check(CLI::Range(0, 1000000));
   run->add_option("--fineness", fineness, "override the case's mesh fineness")->check(CLI::Range(0.1, 20.0));
+  run->add_option("--steps", steps, "override the number of steps of a phase-angle or rotor-motion study")
+      ->check(CLI::Range(2, 100000));
 
   auto* compare = cli.add_subcommand("compare", "run several cases and tabulate their field metrics side by side");
   compare->add_option("CASES", case_paths, "case files (TOML)")->required()->expected(2, 1000);
@@ -103,6 +107,7 @@ int main(int argc, char** argv) {
   return guarded([&] {
     tf::app::Case c = tf::app::read_case(case_path);
     if (fineness > 0.0) c.mesh.fineness = fineness;
+    if (steps > 0) tf::app::override_steps(c, steps);
     if (field_files >= 0) c.study.n_field_files = std::min(field_files, c.study.n_steps);
     if (check->parsed()) {
       std::cout << case_path << ": valid (" << c.title << ")\n";
@@ -114,6 +119,8 @@ int main(int argc, char** argv) {
       tf::app::RunOptions options{out_dir.empty() ? default_out_dir(case_path) : fs::path(out_dir), all_steps};
       if (c.study.kind == tf::post::StudyKind::eddy_currents)
         tf::app::run_eddy_case(c, options, std::cout);
+      else if (tf::app::solved_step_by_step(c))
+        tf::app::run_motion_case(c, options, std::cout);
       else
         tf::app::run_case(c, options, std::cout);
     }

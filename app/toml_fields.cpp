@@ -303,6 +303,14 @@ std::string Fields::text_or(std::string_view key, std::string fallback) const {
   return s->get();
 }
 
+bool Fields::boolean_or(std::string_view key, bool fallback) const {
+  if (!has(key)) return fallback;
+  const toml::node& node = *table_->get(key);
+  const auto* b = node.as_boolean();
+  if (!b) fail(key, "found " + type_name(node), "true or false (without quotes)");
+  return b->get();
+}
+
 std::size_t Fields::choice(std::string_view key, const std::vector<std::string>& choices) const {
   std::vector<std::string> shown;
   for (const std::string& c : choices) shown.push_back(quoted(c));

@@ -89,6 +89,7 @@ class Fields {
   int integer_or(std::string_view key, int fallback, const IntRange& range) const;
 
   std::string text_or(std::string_view key, std::string fallback) const;
+  bool boolean_or(std::string_view key, bool fallback) const;
 
   /// A required string that must be one of `choices`; returns its index in `choices`.
   std::size_t choice(std::string_view key, const std::vector<std::string>& choices) const;

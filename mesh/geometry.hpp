@@ -111,8 +111,8 @@ struct RotorGeometry {
                               ///< with surface magnets, the magnets' outer surface
   double shaft_radius = 0.0;  ///< [m]; 0 for no separate shaft
   double sleeve_thickness = 0.0;  ///< [m]; a conducting sleeve on the iron rotor's surface, 0 for none
-  SurfaceMagnets magnets;     ///< surface_magnet rotors only
-  RotorSlots slots;           ///< slotted rotors only
+  SurfaceMagnets magnets{};   ///< surface_magnet rotors only
+  RotorSlots slots{};         ///< slotted rotors only
 };
 
 struct Geometry {

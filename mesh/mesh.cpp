@@ -1,5 +1,7 @@
 #include "mesh/mesh.hpp"
 
+#include <cmath>
+
 namespace tf::mesh {
 
 int find_region(const Mesh& m, RegionKind kind, int slot, int layer) {
@@ -8,6 +10,31 @@ int find_region(const Mesh& m, RegionKind kind, int slot, int layer) {
     if (g.kind == kind && g.slot == slot && g.layer == layer) return static_cast<int>(r);
   }
   return -1;
+}
+
+bool on_rotor_side(const Region& r) {
+  switch (r.kind) {
+    case RegionKind::rotor_iron:
+    case RegionKind::shaft:
+    case RegionKind::rotor_sleeve:
+    case RegionKind::magnet:
+    case RegionKind::rotor_air:
+    case RegionKind::rotor_bar: return true;
+    case RegionKind::gap: return r.name == "gap_rotor_side";
+    default: return false;
+  }
+}
+
+Mesh with_rotor_turned(const Mesh& m, double angle) {
+  Mesh out = m;
+  std::vector<bool> turns(m.n_nodes(), false);
+  for (int t = 0; t < m.n_triangles(); ++t)
+    if (on_rotor_side(m.regions[m.triangle_region(t)]))
+      for (int j = 0; j < 3; ++j) turns[m.triangles(t, j)] = true;
+  const double c = std::cos(angle), s = std::sin(angle);
+  for (int i = 0; i < m.n_nodes(); ++i)
+    if (turns[i]) out.nodes.row(i) = Eigen::RowVector2d(c * m.nodes(i, 0) - s * m.nodes(i, 1), s * m.nodes(i, 0) + c * m.nodes(i, 1));
+  return out;
 }
 
 double triangle_area(const Mesh& m, int t) {

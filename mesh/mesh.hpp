@@ -70,6 +70,13 @@ struct Mesh {
 /// Index of the region with this kind, slot and layer; -1 if there is none.
 int find_region(const Mesh& m, RegionKind kind, int slot = 0, int layer = 0);
 
+/// True for the parts that turn with the rotor, including the gap band inside the sliding circle.
+bool on_rotor_side(const Region& r);
+
+/// The mesh drawn with its rotor turned by `angle` [rad] counter-clockwise: the nodes of every
+/// rotor-side triangle rotated (the rotor side of the sliding circle included), the rest unchanged.
+Mesh with_rotor_turned(const Mesh& m, double angle);
+
 /// Area of each region [m^2], indexed like m.regions.
 std::vector<double> region_areas(const Mesh& m);
 

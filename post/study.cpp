@@ -1,9 +1,24 @@
 #include "post/study.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <numbers>
 
 namespace tf::post {
+
+namespace {
+
+/// Axis, peak, distortion and poles of a step whose B_r, B_θ and harmonics are filled in.
+void derive_gap_quantities(StepResult& s, double radius, int pole_pairs, int max_order) {
+  s.fundamental = s.harmonics(pole_pairs);
+  s.axis = axis_angle(s.fundamental, pole_pairs);
+  s.peak = s.br.cwiseAbs().maxCoeff();
+  s.poles = pole_map(s.br, radius);
+  const double others = s.harmonics.segment(1, max_order).squaredNorm() - std::norm(s.fundamental);
+  s.distortion = std::abs(s.fundamental) > 0.0 ? std::sqrt(std::max(0.0, others)) / std::abs(s.fundamental) : 0.0;
+}
+
+}  // namespace
 
 StudyResult phase_sweep(const mesh::Mesh& m, const mesh::Winding& w, const solver::PhaseFields& fields,
                         const solver::Supply& supply, const StudyPlan& plan) {
@@ -19,8 +34,6 @@ StudyResult phase_sweep(const mesh::Mesh& m, const mesh::Winding& w, const solve
   out.sample_angles = ops.angles;
   out.unit_fundamentals.resize(w.spec.n_phases);
   for (int k = 0; k < w.spec.n_phases; ++k) out.unit_fundamentals[k] = unit_harmonics(p, k);
-  std::vector<std::complex<double>> fundamental;
-  std::vector<double> peak, distortion;
   const auto currents = solver::step_currents(supply, w.spec.n_phases, plan.n_steps);
   const int n_steps = static_cast<int>(currents.size());
   for (int k = 0; k < n_steps; ++k) {
@@ -31,19 +44,31 @@ StudyResult phase_sweep(const mesh::Mesh& m, const mesh::Winding& w, const solve
     s.br = unit_br * i;
     s.bt = unit_bt * i;
     s.harmonics = unit_harmonics * i.cast<std::complex<double>>();
-    s.fundamental = s.harmonics(p);
-    s.axis = axis_angle(s.fundamental, p);
-    s.peak = s.br.cwiseAbs().maxCoeff();
-    s.poles = pole_map(s.br, ops.radius);
-    const double others = s.harmonics.segment(1, max_order).squaredNorm() - std::norm(s.fundamental);
-    s.distortion = std::abs(s.fundamental) > 0.0 ? std::sqrt(std::max(0.0, others)) / std::abs(s.fundamental) : 0.0;
+    derive_gap_quantities(s, ops.radius, p, max_order);
+    out.steps.push_back(std::move(s));
+  }
+  finish_rotation_metrics(out, p);
+  return out;
+}
+
+StepResult sample_gap_field(const GapOperators& ops, const Eigen::VectorXd& a, int pole_pairs, int max_order) {
+  StepResult s;
+  s.br = ops.br * a;
+  s.bt = ops.bt * a;
+  s.harmonics = gap_harmonics(ops, a).col(0);
+  derive_gap_quantities(s, ops.radius, pole_pairs, max_order);
+  return s;
+}
+
+void finish_rotation_metrics(StudyResult& r, int pole_pairs) {
+  std::vector<std::complex<double>> fundamental;
+  std::vector<double> peak, distortion;
+  for (const StepResult& s : r.steps) {
     fundamental.push_back(s.fundamental);
     peak.push_back(s.peak);
     distortion.push_back(s.distortion);
-    out.steps.push_back(std::move(s));
   }
-  out.metrics = rotation_metrics(fundamental, peak, distortion, p);
-  return out;
+  r.metrics = rotation_metrics(fundamental, peak, distortion, pole_pairs);
 }
 
 std::vector<int> field_file_steps(int n_steps, int n_files) {

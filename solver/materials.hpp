@@ -2,13 +2,28 @@
 // Linear materials of the cross-section. Coils and air have the permeability of free space and,
 // as source regions of given current, no eddy currents.
 
+#include <optional>
+#include <string>
+#include <vector>
+
 namespace tf::solver {
+
+/// A B-H curve as given: points (H [A/m], B [T]) of the solid steel, the stacking factor of the
+/// laminations (iron's share of the stack), and where the data come from.
+struct BhTable {
+  std::vector<double> h, b;
+  std::string source;
+  double stacking_factor = 1.0;
+};
 
 struct Materials {
   double stator_iron_mu_r = 1000.0;  ///< relative permeability of the stator laminations
   double rotor_iron_mu_r = 1000.0;
   double shaft_mu_r = 1.0;
   double sleeve_mu_r = 1.0;          ///< a conducting sleeve on the rotor surface
+  /// Nonlinear iron: when given, the curve replaces the relative permeability (magnetostatics only).
+  std::optional<BhTable> stator_iron_bh{};
+  std::optional<BhTable> rotor_iron_bh{};
   // Conductivities [S/m] for eddy currents (time-harmonic studies); 0 is an insulator or laminations.
   double stator_iron_sigma = 0.0;
   double rotor_iron_sigma = 0.0;

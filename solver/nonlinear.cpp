@@ -213,7 +213,27 @@ NewtonReport NonlinearSolver::solve(const Eigen::VectorXd& f, Eigen::VectorXd& a
   }
   report.residual = residual(a, f).norm();
   last_solution_ = a;
+  last_b_squared_ = triangle_b_squared(a);
   return report;
+}
+
+Eigen::VectorXd NonlinearSolver::predict(const Eigen::VectorXd& f) {
+  assert(f.size() == n_dofs_);
+  if (linear_ || last_b_squared_.empty()) return Eigen::VectorXd::Zero(n_dofs_);
+  // The secant reluctivity of each triangle as the last solution left it: the iron saturates
+  // where it did, and only the change since then is left to Newton.
+  double* values = matrix_.valuePtr();
+  std::fill(values, values + matrix_.nonZeros(), 0.0);
+  for (std::size_t t = 0; t < elements_.size(); ++t) {
+    const Element& e = elements_[t];
+    const double nu = material_of(laws_[static_cast<std::size_t>(e.region)], last_b_squared_[t]).nu;
+    for (int ij = 0; ij < 9; ++ij)
+      if (e.value_index[static_cast<std::size_t>(ij)] >= 0)
+        values[e.value_index[static_cast<std::size_t>(ij)]] += nu * e.unit_stiffness(ij / 3, ij % 3);
+  }
+  cholesky_.factorize(matrix_);
+  factorized_.reset();
+  return cholesky_.solve(f);
 }
 
 Eigen::MatrixXd NonlinearSolver::solve_with(Matrix kind, const Eigen::MatrixXd& rhs) {
@@ -242,6 +262,25 @@ double NonlinearSolver::coenergy(const Eigen::VectorXd& a) const {
     sum += elements_[t].area * density;
   }
   return sum;
+}
+
+}  // namespace tf::solver
+
+namespace tf::solver {
+
+double NonlinearSolver::energy(const Eigen::VectorXd& a) const {
+  const std::vector<double> b2 = triangle_b_squared(a);
+  double sum = 0.0;
+  for (std::size_t t = 0; t < elements_.size(); ++t) {
+    const RegionLaw& law = laws_[static_cast<std::size_t>(elements_[t].region)];
+    const double density = law.curve ? law.curve->energy_density(std::sqrt(b2[t])) : 0.5 * law.nu * b2[t];
+    sum += elements_[t].area * density;
+  }
+  return sum;
+}
+
+double NonlinearSolver::coenergy_stationary(const Eigen::VectorXd& f, const Eigen::VectorXd& a) const {
+  return f.dot(a) - energy(a);
 }
 
 }  // namespace tf::solver

@@ -27,7 +27,7 @@ struct RegionLaw {
 };
 
 struct NewtonControls {
-  double tolerance = 1e-8;  ///< relative, on both the residual (to ||f||) and the update (to ||a||)
+  double tolerance = 1e-6;  ///< relative, on both the residual (to ||f||) and the update (to ||a||)
   int max_iterations = 40;
 };
 
@@ -60,6 +60,11 @@ class NonlinearSolver {
   /// Throws SolveError when a matrix cannot be factorized.
   NewtonReport solve(const Eigen::VectorXd& f, Eigen::VectorXd& a);
 
+  /// A starting point for solve() after the sources or the numbering changed (the rotor turned):
+  /// the linear solution with every triangle's secant reluctivity frozen at the last solution
+  /// (one factorization). Zero before the first solve, and for linear problems.
+  Eigen::VectorXd predict(const Eigen::VectorXd& f);
+
   /// B^2 [T^2] of every triangle for the potentials a (#dofs), indexed like m.triangles.
   std::vector<double> triangle_b_squared(const Eigen::VectorXd& a) const;
 
@@ -69,6 +74,17 @@ class NonlinearSolver {
   /// Solves K(nu) x = rhs with the secant reluctivity nu = H/B of every triangle frozen at the
   /// last solution (frozen permeability), e.g. to split flux linkage between sources.
   Eigen::MatrixXd solve_frozen(const Eigen::MatrixXd& rhs);
+
+  /// Energy per metre, sum over triangles of area * w(B) [J/m]; a linear region contributes nu B^2 / 2.
+  double energy(const Eigen::VectorXd& a) const;
+
+  /// Co-energy per metre [J/m] as minus the energy functional, f . a - energy(a): equal to
+  /// coenergy(a) at the solution, and stationary there (the solution minimises the functional), so
+  /// an iterate near it gives the co-energy with an error of the order of the squared field error.
+  double coenergy_stationary(const Eigen::VectorXd& f, const Eigen::VectorXd& a) const;
+
+  /// Changes the Newton controls for the following solves.
+  void set_controls(NewtonControls controls) { controls_ = controls; }
 
   /// Co-energy per metre, sum over triangles of area * (B H - w(B)) [J/m]; a linear region
   /// contributes nu B^2 / 2 (equal to its energy).
@@ -93,6 +109,7 @@ class NonlinearSolver {
   double analysed_fill_ = 0.0;  ///< nonzeros of L with the ordering of the last full analysis
   bool linear_ = true;
   Eigen::VectorXd last_solution_;
+  std::vector<double> last_b_squared_;  ///< per triangle at the last solution; kept across set_dofs
   std::optional<Matrix> factorized_;  ///< what the Cholesky factor holds, at last_solution_
 };
 

@@ -1,5 +1,7 @@
 #include "solver/spd_solver.hpp"
 
+#include <dlfcn.h>
+
 #include <cassert>
 #include <vector>
 
@@ -52,12 +54,28 @@ const Eigen::SparseMatrix<double>& compressed(const Eigen::SparseMatrix<double>&
 
 }  // namespace
 
+/// CHOLMOD's supernodal kernels ask OpenMP for a fixed 4 threads and OpenBLAS starts one per core;
+/// on these 2-core machines, at the sizes a 2D section has, the threads mostly wait for each other
+/// (measured: half of a rotor-position study's time in the kernel, sched_yield and futex wake-ups;
+/// the study ran in 26 s with them and 19-20 s without). So: one BLAS thread, and OpenMP allowed to
+/// give fewer threads than asked. Looked up at run time, so that any BLAS and OpenMP build links.
+void quiet_library_threads() {
+  static const bool done = [] {
+    if (auto* set_blas = reinterpret_cast<void (*)(int)>(dlsym(RTLD_DEFAULT, "openblas_set_num_threads")))
+      set_blas(1);
+    if (auto* set_dynamic = reinterpret_cast<void (*)(int)>(dlsym(RTLD_DEFAULT, "omp_set_dynamic"))) set_dynamic(1);
+    return true;
+  }();
+  (void)done;
+}
+
 struct SpdSolver::Impl {
   cholmod_common common{};
   cholmod_factor* factor = nullptr;
   std::vector<int> ordering;  ///< fill-reducing permutation of the last full analysis
 
   Impl() {
+    quiet_library_threads();
     cholmod_start(&common);
     common.supernodal = CHOLMOD_SUPERNODAL;
     common.final_asis = 1;

@@ -1,0 +1,240 @@
+#include "app/motion_run.hpp"
+
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <limits>
+#include <numbers>
+#include <numeric>
+
+#include <fmt/format.h>
+
+#include "app/case_json.hpp"
+#include "app/motion_plan.hpp"
+#include "app/progress.hpp"
+#include "post/atomic_file.hpp"
+#include "post/flux_quantities.hpp"
+#include "post/motion_output.hpp"
+#include "post/study.hpp"
+#include "post/summary.hpp"
+#include "post/tables.hpp"
+#include "post/torque.hpp"
+#include "post/vtu.hpp"
+#include "solver/flux_linkage.hpp"
+#include "solver/motion.hpp"
+
+namespace tf::app {
+namespace {
+
+namespace fs = std::filesystem;
+using Clock = std::chrono::steady_clock;
+double since(Clock::time_point t) { return std::chrono::duration<double>(Clock::now() - t).count(); }
+
+/// The study's speed [rad/s]: as given, or synchronous with the supply.
+double study_speed(const Case& c) {
+  if (c.study.speed != 0.0) return c.study.speed;
+  return 2 * std::numbers::pi * c.supply.frequency / c.winding.pole_pairs();
+}
+
+double min_flux(const post::MotionResult& r, int phase) {
+  double v = r.steps.front().flux_linkage[phase];
+  for (const auto& s : r.steps) v = std::min(v, s.flux_linkage[phase]);
+  return v;
+}
+
+double max_flux(const post::MotionResult& r, int phase) {
+  double v = r.steps.front().flux_linkage[phase];
+  for (const auto& s : r.steps) v = std::max(v, s.flux_linkage[phase]);
+  return v;
+}
+
+struct Context {
+  const Case& c;
+  const mesh::Mesh& m;
+  const mesh::Winding& w;
+  const MotionSchedule& plan;
+};
+
+/// Flux linkage per phase [Wb] of one nodal field.
+std::vector<double> phase_flux(const Context& x, const Eigen::VectorXd& a) {
+  const Eigen::VectorXd psi = solver::flux_linkage(x.m, x.w, a, x.c.stack_length).col(0);
+  return {psi.data(), psi.data() + psi.size()};
+}
+
+/// Torque by co-energy [N m]: the rotor turned one pitch either way with the currents held.
+double virtual_work(const Context& x, solver::MotionSolver& s, int k, const solver::PositionField& f) {
+  const auto& i = x.plan.currents[k];
+  const double plus = s.coenergy(f.shift + 1, i);
+  const double minus = s.coenergy(f.shift - 1, i);
+  return x.c.stack_length * post::virtual_work_torque(minus, plus, solver::sliding_pitch(x.m));
+}
+
+/// Solves step k (warm-started from the previous field) and everything that needs its solver state.
+post::PositionStep solve_step(const Context& x, solver::MotionSolver& s, int k, Eigen::VectorXd& field,
+                              post::StepResult& gap) {
+  const int p = x.c.winding.pole_pairs();
+  const solver::PositionField f = s.solve(x.plan.shift[k], x.plan.currents[k]);
+  field = f.a;
+  // B_θ on the circle reads the rotor-side triangles, which face other chords once the rotor turned.
+  const post::GapOperators ops = post::gap_operators(x.m, x.c.study.n_gap_points, p * x.c.study.max_harmonic, f.shift);
+  gap = post::sample_gap_field(ops, f.a, p, p * x.c.study.max_harmonic);
+  gap.electrical_angle = x.plan.electrical_angle[k];
+  gap.currents = x.plan.currents[k];
+  post::PositionStep step;
+  step.rotor_angle = x.plan.rotor_angle[k];
+  step.newton_iterations = f.newton.iterations;
+  step.newton_residual = f.newton.residual;
+  step.torque_arkkio = post::arkkio_torque_static(x.m, f.a, x.c.stack_length);
+  step.torque_circle = post::circle_torque(ops, f.a, x.c.stack_length);
+  step.flux_linkage = phase_flux(x, f.a);
+  step.inductance_frozen = solver::flux_linkage(x.m, x.w, s.frozen_unit_fields(), x.c.stack_length);
+  step.inductance_incremental = solver::flux_linkage(x.m, x.w, s.incremental_unit_fields(), x.c.stack_length);
+  step.torque_virtual_work =
+      x.c.study.virtual_work ? virtual_work(x, s, k, f) : std::numeric_limits<double>::quiet_NaN();
+  return step;
+}
+
+/// dq flux linkages and the EMF -dψ/dt, once every step is solved.
+void derive_flux_quantities(const Context& x, post::MotionResult& r) {
+  const int p = x.c.winding.pole_pairs(), n_phases = x.c.winding.n_phases;
+  for (post::PositionStep& step : r.steps) {
+    const double d_axis = p * (step.rotor_angle + x.plan.rotor_d_axis) - x.w.phase_a_axis;
+    const Eigen::Map<const Eigen::VectorXd> psi(step.flux_linkage.data(), n_phases);
+    const post::DqPair dq = post::park_transform(psi, d_axis);
+    step.flux_d = dq.d;
+    step.flux_q = dq.q;
+  }
+  // Spectral differentiation when the steps cover whole electrical periods (then ψ is periodic
+  // over the span), central differences otherwise.
+  const double periods = x.plan.span * p / (2 * std::numbers::pi);
+  const bool periodic = std::abs(periods - std::round(periods)) < 1e-9 && periods >= 1.0;
+  const int n = static_cast<int>(r.steps.size());
+  for (int ph = 0; ph < n_phases; ++ph) {
+    Eigen::VectorXd psi(n);
+    for (int k = 0; k < n; ++k) psi(k) = r.steps[k].flux_linkage[ph];
+    const Eigen::VectorXd e = periodic ? post::back_emf_periodic(psi, x.plan.span, r.speed)
+                                       : post::back_emf_sampled(psi, x.plan.span / n, r.speed);
+    for (int k = 0; k < n; ++k) r.steps[k].back_emf.push_back(e(k));
+  }
+}
+
+/// Solves every step; keeps the nodal fields of the steps listed in `kept` (for field files).
+post::MotionResult solve_motion(const Context& x, solver::MotionSolver& s, const std::vector<int>& kept,
+                                std::vector<Eigen::VectorXd>& kept_fields, Progress& progress) {
+  post::MotionResult r;
+  for (int j = 0; j < x.c.study.n_gap_points; ++j)
+    r.gap.sample_angles.push_back(2 * std::numbers::pi * j / x.c.study.n_gap_points);
+  const int n = static_cast<int>(x.plan.shift.size());
+  Eigen::VectorXd field;
+  for (int k = 0; k < n; ++k) {
+    progress.count("solving rotor positions", k, n);
+    post::StepResult gap;
+    r.steps.push_back(solve_step(x, s, k, field, gap));
+    r.gap.steps.push_back(std::move(gap));
+    if (std::find(kept.begin(), kept.end(), k) != kept.end()) kept_fields.push_back(field);
+  }
+  post::finish_rotation_metrics(r.gap, x.c.winding.pole_pairs());
+  return r;
+}
+
+
+void summarise(const Context& x, post::MotionResult& r, const solver::MotionStats& stats) {
+  std::vector<double> arkkio, circle, work;
+  for (const auto& s : r.steps) {
+    arkkio.push_back(s.torque_arkkio);
+    circle.push_back(s.torque_circle);
+    work.push_back(s.torque_virtual_work);
+  }
+  r.arkkio = post::torque_stats(arkkio);
+  r.circle = post::torque_stats(circle);
+  if (x.c.study.virtual_work) r.virtual_work = post::torque_stats(work);
+  const int q = x.c.geometry.stator.n_slots, two_p = x.c.winding.n_poles;
+  r.cogging_period_expected = 2 * std::numbers::pi / std::lcm(q, two_p);
+  r.cogging_period_measured = post::dominant_period(arkkio, x.plan.span);
+  r.mean_newton_iterations = static_cast<double>(stats.n_iterations) / std::max(1, stats.n_solves);
+}
+
+/// Time [s] of each step for the field collection: the supply's time in a synchronous study, the
+/// time at the study's speed otherwise.
+std::vector<double> step_times(const Case& c, const MotionSchedule& plan) {
+  std::vector<double> t;
+  for (std::size_t k = 0; k < plan.shift.size(); ++k)
+    t.push_back(c.study.kind == post::StudyKind::synchronous
+                    ? plan.electrical_angle[k] / (2 * std::numbers::pi * c.supply.frequency)
+                    : plan.rotor_angle[k] / study_speed(c));
+  return t;
+}
+
+void print_torque(std::ostream& out, const char* method, const post::TorqueStats& t) {
+  out << fmt::format("  torque, {:<13} mean {:>10.5g} N m   {:>10.5g} .. {:<10.5g}  ripple {}\n", method, t.mean, t.min,
+                     t.max, std::isnan(t.ripple) ? std::string("-") : fmt::format("{:.2f} %", 100 * t.ripple));
+}
+
+void print_motion(std::ostream& out, const Case& c, const post::MotionResult& r, const post::MotionRecord& rec,
+                  const fs::path& dir) {
+  constexpr double deg = 180.0 / std::numbers::pi;
+  out << fmt::format("{}\n", c.title);
+  if (c.study.kind == post::StudyKind::synchronous)
+    out << fmt::format("  rotor turning with the field, load angle {:.2f} electrical degrees\n", rec.load_angle * deg);
+  print_torque(out, "Arkkio", r.arkkio);
+  print_torque(out, "circle", r.circle);
+  if (c.study.virtual_work) print_torque(out, "virtual work", r.virtual_work);
+  out << fmt::format("  cogging period {:.3f} deg expected (360/LCM(Q, 2p)), {:.3f} deg in the Arkkio torque\n",
+                     r.cogging_period_expected * deg, r.cogging_period_measured * deg);
+  out << fmt::format("  flux linkage A {:.5g} .. {:.5g} Wb, Newton iterations per solve {:.2f}\n",
+                     min_flux(r, 0), max_flux(r, 0), r.mean_newton_iterations);
+  out << fmt::format("  results in {}\n", dir.string());
+  out << "  " << post::kSafetyCaution << "\n";
+}
+
+}  // namespace
+
+bool solved_step_by_step(const Case& c) {
+  if (post::rotor_turns(c.study.kind)) return true;
+  return c.study.kind == post::StudyKind::phase_angles && (c.materials.stator_iron_bh || c.materials.rotor_iron_bh);
+}
+
+void run_motion_case(const Case& given, const RunOptions& options, std::ostream& out) {
+  Progress progress;
+  post::MotionRecord record;
+  Case c = given;
+  c.mesh.sliding_multiple = sliding_multiple(c);
+  auto t = Clock::now();
+  progress.stage("meshing");
+  const auto [m, w] = mesh_and_wind(c);
+  record.seconds.push_back({"mesh", since(t)});
+
+  t = Clock::now();
+  const MotionSchedule plan = plan_motion(c, m, w);
+  const Context x{c, m, w, plan};
+  solver::MotionSolver solver(m, w, c.materials, solver::magnet_layout(c.geometry.rotor));
+  const int n_files = options.all_field_files ? c.study.n_steps : c.study.n_field_files;
+  const std::vector<int> file_steps = n_files > 0 ? post::field_file_steps(c.study.n_steps, n_files) : std::vector<int>{};
+  std::vector<Eigen::VectorXd> fields;
+  post::MotionResult r = solve_motion(x, solver, file_steps, fields, progress);
+  r.speed = study_speed(c);
+  derive_flux_quantities(x, r);
+  summarise(x, r, solver.stats());
+  record.stats = solver.stats();
+  record.seconds.push_back({"solve", since(t)});
+
+  t = Clock::now();
+  const fs::path& dir = options.out_dir;
+  post::prepare_result_folder(dir);
+  record.files = post::write_motion_tables(dir, r, w, c.supply.frequency);
+  const auto vtu = post::write_motion_fields(dir, m, r, file_steps, fields, step_times(c, plan));
+  record.files.insert(record.files.end(), vtu.begin(), vtu.end());
+  record.seconds.push_back({"write", since(t)});
+  progress.finish();
+
+  record.version = kVersion;
+  record.inputs_json = case_to_json(c);
+  record.load_angle = plan.load_angle;
+  record.mesh = &m;
+  record.winding = &w;
+  record.result = &r;
+  post::write_motion_summary(dir / "summary.json", record);
+  print_motion(out, c, r, record, dir);
+}
+
+}  // namespace tf::app

@@ -1,0 +1,51 @@
+#pragma once
+// What a rotor-motion study (synchronous, cogging, rotor sweep) reports per step and in all.
+
+#include <string>
+#include <vector>
+
+#include <Eigen/Core>
+
+#include "post/study.hpp"
+
+namespace tf::post {
+
+/// One rotor position. Angles in radians; torque [N m] and flux linkage [Wb] over the stack length.
+struct PositionStep {
+  double rotor_angle = 0.0;       ///< mechanical, counter-clockwise from the rotor's starting position
+  double torque_arkkio = 0.0;     ///< the main value: Maxwell stress averaged over the gap band
+  double torque_circle = 0.0;     ///< cross-check: Maxwell stress on the mid-gap circle
+  double torque_virtual_work = 0.0;  ///< cross-check: co-energy difference of the neighbouring positions (NaN if off)
+  std::vector<double> flux_linkage;  ///< per phase
+  double flux_d = 0.0, flux_q = 0.0;  ///< dq-axis flux linkages (amplitude-invariant), d on the rotor's d axis
+  std::vector<double> back_emf;       ///< per phase [V] at the study's speed: -dψ/dt
+  Eigen::MatrixXd inductance_frozen;       ///< #phases by #phases [H], secant (frozen) permeability
+  Eigen::MatrixXd inductance_incremental;  ///< #phases by #phases [H], differential permeability
+  int newton_iterations = 0;
+  double newton_residual = 0.0;  ///< relative
+};
+
+/// Mean, extremes and ripple of a torque sequence.
+struct TorqueStats {
+  double mean = 0.0, min = 0.0, max = 0.0;
+  double peak_to_peak = 0.0;
+  double ripple = 0.0;  ///< peak_to_peak / |mean| (NaN when the mean is zero, e.g. cogging)
+};
+TorqueStats torque_stats(const std::vector<double>& torque);
+
+struct MotionResult {
+  StudyResult gap;                   ///< air-gap field per step (currents and electrical angle filled in)
+  std::vector<PositionStep> steps;
+  TorqueStats arkkio, circle, virtual_work;
+  double speed = 0.0;                ///< mechanical [rad/s] of the back-EMF
+  double cogging_period_expected = 0.0;  ///< 2π / LCM(Q, 2p) [rad] (common practice)
+  double cogging_period_measured = 0.0;  ///< [rad]: the longest period the torque's spectrum shows; 0 if flat
+  double mean_newton_iterations = 0.0;
+  std::vector<std::pair<std::string, double>> iron_loss;  ///< per iron region [W]; empty if not estimated
+};
+
+/// Period [rad] of the strongest non-constant harmonic of a sequence sampled at equal steps over
+/// `span` [rad], taken as span / (its order); 0 when the sequence is constant to round-off.
+double dominant_period(const std::vector<double>& samples, double span);
+
+}  // namespace tf::post

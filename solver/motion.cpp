@@ -1,0 +1,171 @@
+#include "solver/motion.hpp"
+
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <numbers>
+#include <sstream>
+
+#include "solver/assemble.hpp"
+#include "solver/bh_curve.hpp"
+#include "solver/dofs.hpp"
+#include "solver/errors.hpp"
+#include "solver/magnets.hpp"
+
+namespace tf::solver {
+namespace {
+
+using Clock = std::chrono::steady_clock;
+double since(Clock::time_point t) { return std::chrono::duration<double>(Clock::now() - t).count(); }
+
+/// Sums nodal values (#nodes) into the unknowns they belong to; fixed nodes drop out.
+Eigen::VectorXd gather(const DofMap& d, const Eigen::VectorXd& nodal) {
+  Eigen::VectorXd f = Eigen::VectorXd::Zero(d.n_dofs);
+  for (std::size_t node = 0; node < d.dof_of_node.size(); ++node)
+    if (d.dof_of_node[node] >= 0) f(d.dof_of_node[node]) += nodal(static_cast<Eigen::Index>(node));
+  return f;
+}
+
+/// Identity numbering: one "unknown" per node, to build loads once in node space.
+DofMap node_space(const mesh::Mesh& m) {
+  DofMap d;
+  d.n_dofs = m.n_nodes();
+  d.dof_of_node.resize(m.n_nodes());
+  for (int i = 0; i < m.n_nodes(); ++i) d.dof_of_node[i] = i;
+  return d;
+}
+
+/// Per region: a constant reluctivity, or the B-H curve of laminated iron.
+std::vector<RegionLaw> region_laws(const mesh::Mesh& m, const Materials& mat, const std::vector<BhCurve>& curves) {
+  const std::vector<double> nu = region_reluctivity(m, mat);
+  std::vector<RegionLaw> laws(m.regions.size());
+  for (std::size_t r = 0; r < laws.size(); ++r) {
+    laws[r].nu = nu[r];
+    const mesh::RegionKind k = m.regions[r].kind;
+    if (k == mesh::RegionKind::stator_iron && mat.stator_iron_bh) laws[r].curve = &curves[0];
+    if (k == mesh::RegionKind::rotor_iron && mat.rotor_iron_bh) laws[r].curve = &curves[1];
+  }
+  return laws;
+}
+
+std::vector<BhCurve> make_curves(const Materials& mat) {
+  const BhTable none{{0.0, 1.0, 2.0}, {0.0, 1.0, 2.0}, "", 1.0};  // placeholder, never referenced
+  const auto make = [&](const std::optional<BhTable>& t) {
+    const BhTable& u = t ? *t : none;
+    return BhCurve(u.h, u.b, u.stacking_factor);
+  };
+  return {make(mat.stator_iron_bh), make(mat.rotor_iron_bh)};
+}
+
+}  // namespace
+
+double sliding_pitch(const mesh::Mesh& m) {
+  return 2 * std::numbers::pi / static_cast<double>(m.sliding.stator_nodes.size());
+}
+
+int rotor_shift(const mesh::Mesh& m, double angle) {
+  return static_cast<int>(std::lround(angle / sliding_pitch(m)));
+}
+
+struct MotionSolver::Impl {
+  Impl(const mesh::Mesh& mesh, const mesh::Winding& winding, const Materials& mat, const MagnetLayout& layout,
+       NewtonControls c)
+      : m(mesh),
+        w(winding),
+        curves(make_curves(mat)),
+        dofs(number_dofs(mesh, 0)),
+        solver(mesh, dofs, region_laws(mesh, mat, curves), c),
+        controls(c) {
+    const DofMap all = node_space(m);
+    unit_loads = phase_loads(m, all, w);
+    magnet_source = layout.n_poles > 0 ? magnet_load(m, all, mat, layout) : Eigen::VectorXd::Zero(m.n_nodes());
+    stats.n_dofs = dofs.n_dofs;
+  }
+  const mesh::Mesh& m;
+  const mesh::Winding& w;
+  std::vector<BhCurve> curves;  ///< stator iron, rotor iron (referenced by the solver's laws)
+  DofMap dofs;                  ///< numbering of the rotor position solved last
+  NonlinearSolver solver;
+  NewtonControls controls;
+  Eigen::MatrixXd unit_loads;    ///< #nodes by #phases
+  Eigen::VectorXd magnet_source; ///< #nodes
+  int shift = 0;
+  MotionStats stats;
+
+  Eigen::MatrixXd unit_loads_in_dofs() const {
+    Eigen::MatrixXd f(dofs.n_dofs, unit_loads.cols());
+    for (Eigen::Index k = 0; k < f.cols(); ++k) f.col(k) = gather(dofs, unit_loads.col(k));
+    return f;
+  }
+
+  void turn_to(int k) {
+    if (k == shift) return;
+    const auto t = Clock::now();
+    dofs = number_dofs(m, k);
+    solver.set_dofs(dofs);
+    stats.analyse_seconds += since(t);
+    shift = k;
+  }
+};
+
+MotionSolver::MotionSolver(const mesh::Mesh& m, const mesh::Winding& w, const Materials& materials,
+                           const MagnetLayout& layout, NewtonControls controls) {
+  const auto t = Clock::now();
+  impl_ = std::make_unique<Impl>(m, w, materials, layout, controls);
+  impl_->stats.analyse_seconds = since(t);  // the first analysis, with the ordering search
+}
+MotionSolver::~MotionSolver() = default;
+
+PositionField MotionSolver::solve(int shift, const std::vector<double>& currents, bool warm_start) {
+  return solve_with(shift, currents, warm_start, impl_->controls);
+}
+
+double MotionSolver::coenergy(int shift, const std::vector<double>& currents) {
+  // The stationary form of the co-energy errs by the square of the field's error, so a loose
+  // tolerance keeps it accurate to far below the differences that virtual work takes.
+  NewtonControls loose = impl_->controls;
+  loose.tolerance = std::max(loose.tolerance, 1e-4);
+  return solve_with(shift, currents, true, loose).coenergy;
+}
+
+PositionField MotionSolver::solve_with(int shift, const std::vector<double>& currents, bool warm_start,
+                                       const NewtonControls& controls) {
+  Impl& s = *impl_;
+  s.solver.set_controls(controls);
+  s.turn_to(shift);
+  const auto t = Clock::now();
+  const Eigen::Map<const Eigen::VectorXd> i(currents.data(), static_cast<Eigen::Index>(currents.size()));
+  const Eigen::VectorXd f = gather(s.dofs, s.unit_loads * i + s.magnet_source);
+  // After a turn the old potentials do not fit the new connection across the gap (measured: a
+  // residual 200 times the load's, and more iterations than from zero); the prediction with the
+  // permeabilities of the last solution frozen does.
+  Eigen::VectorXd a = warm_start ? s.solver.predict(f) : Eigen::VectorXd::Zero(s.dofs.n_dofs);
+  PositionField out;
+  out.shift = shift;
+  out.newton = s.solver.solve(f, a);
+  s.stats.solve_seconds += since(t);
+  ++s.stats.n_solves;
+  s.stats.n_iterations += out.newton.iterations;
+  if (!out.newton.converged) {
+    std::ostringstream msg;
+    msg << "Newton iterations did not converge in " << out.newton.iterations << " iterations (residual "
+        << out.newton.residual << " relative); usual causes: a B-H table that ends far below the flux densities "
+        << "reached, or currents far beyond the machine's rating";
+    throw SolveError(msg.str());
+  }
+  out.a = to_nodes(s.dofs, a);
+  out.coenergy = s.solver.coenergy_stationary(f, a);
+  return out;
+}
+
+Eigen::MatrixXd MotionSolver::frozen_unit_fields() {
+  return to_nodes(impl_->dofs, impl_->solver.solve_frozen(impl_->unit_loads_in_dofs()));
+}
+
+Eigen::MatrixXd MotionSolver::incremental_unit_fields() {
+  return to_nodes(impl_->dofs, impl_->solver.solve_incremental(impl_->unit_loads_in_dofs()));
+}
+
+const MotionStats& MotionSolver::stats() const { return impl_->stats; }
+
+}  // namespace tf::solver
