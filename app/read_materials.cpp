@@ -14,7 +14,7 @@ namespace tf::app {
 namespace {
 
 constexpr RealRange permeability{.min = 0, .max = 1e6, .min_excluded = true};
-constexpr const char* kIronKeys[] = {"relative_permeability", "conductivity", "bh_curve"};
+constexpr const char* kIronKeys[] = {"relative_permeability", "conductivity", "bh_curve", "iron_loss"};
 
 /// A part's optional conductivity [S/m]: 0 (the default) for laminations and insulators. Only
 /// eddy-current studies use it.
@@ -39,10 +39,26 @@ solver::BhTable read_bh_table(const Fields& part) {
   return t;
 }
 
+/// [<part>.iron_loss]: coefficients of a Steinmetz-type law and where they come from.
+std::optional<solver::IronLossData> read_iron_loss(const Fields& part) {
+  const auto f = part.optional_table("iron_loss", {"hysteresis", "exponent", "eddy", "density", "source"});
+  if (!f) return std::nullopt;
+  solver::IronLossData d;
+  d.hysteresis = f->real("hysteresis", {.min = 0, .max = 1, .unit = "W/kg per Hz T^exponent"});
+  d.exponent = f->real_or("exponent", d.exponent, {.min = 1, .max = 3});
+  d.eddy = f->real("eddy", {.min = 0, .max = 1, .unit = "W/kg per (Hz T)^2"});
+  d.density = f->real_or("density", d.density, {.min = 1000, .max = 20000, .unit = "kg/m^3"});
+  d.source = f->text_or("source", "");
+  if (d.source.empty())
+    f->fail("source", "missing", "where the coefficients come from (a publication, a fit to measurements, or \"invented\")");
+  return d;
+}
+
 struct Iron {
   double mu_r = 1000.0;
   double sigma = 0.0;
   std::optional<solver::BhTable> bh;
+  std::optional<solver::IronLossData> loss;
 };
 
 /// An iron part: relative_permeability (required, or with a fallback) or a B-H curve, not both;
@@ -50,6 +66,7 @@ struct Iron {
 Iron read_iron(const Fields& part, const std::optional<Iron>& fallback) {
   Iron iron = fallback.value_or(Iron{});
   iron.sigma = read_conductivity(part);
+  iron.loss = read_iron_loss(part);
   if (!part.has("bh_curve")) {
     iron.mu_r = fallback ? part.real_or("relative_permeability", fallback->mu_r, permeability)
                          : part.real("relative_permeability", permeability);
@@ -99,6 +116,7 @@ solver::Materials read_materials(const Fields& root, const mesh::RotorGeometry& 
   m.stator_iron_mu_r = stator.mu_r;
   m.stator_iron_sigma = stator.sigma;
   m.stator_iron_bh = stator.bh;
+  m.stator_iron_loss = stator.loss;
   // A material for a part that is not there is most likely a leftover of another case.
   read_rotor_parts(f, rotor, m);
   if (rotor.kind == mesh::RotorKind::none) {
@@ -110,7 +128,8 @@ solver::Materials read_materials(const Fields& root, const mesh::RotorGeometry& 
     f.reject("rotor_sleeve", "not used, since the rotor has no sleeve",
              "no such table, or a sleeve given by [rotor] sleeve_thickness");
   if (const auto t = f.optional_table("rotor_iron", iron_keys)) {
-    const Iron iron = read_iron(*t, Iron{m.rotor_iron_mu_r, m.rotor_iron_sigma, std::nullopt});
+    const Iron iron = read_iron(*t, Iron{m.rotor_iron_mu_r, m.rotor_iron_sigma, std::nullopt, std::nullopt});
+    m.rotor_iron_loss = iron.loss;
     m.rotor_iron_mu_r = iron.mu_r;
     m.rotor_iron_sigma = iron.sigma;
     m.rotor_iron_bh = iron.bh;

@@ -109,6 +109,16 @@ std::vector<std::string> write_motion_fields(const std::filesystem::path& dir, c
   return files;
 }
 
+void write_iron_loss(const std::filesystem::path& dir, const mesh::Mesh& m, const IronLoss& loss) {
+  write_atomically(dir / "iron_loss.csv", [&](std::ostream& out) {
+    out << "region,iron_loss_W\n";
+    for (std::size_t i = 0; i < m.regions.size(); ++i)
+      if (loss.region_loss[i] > 0.0) out << m.regions[i].name << ',' << fmt::format("{:.8g}", loss.region_loss[i]) << '\n';
+    out << "total," << fmt::format("{:.8g}", loss.total) << '\n';
+  });
+  write_cell_field_vtu(dir / "iron_loss.vtu", m, "iron_loss_W_per_m3", loss.density);
+}
+
 void write_motion_summary(const std::filesystem::path& path, const MotionRecord& rec) {
   const MotionResult& r = *rec.result;
   json j;
@@ -125,6 +135,7 @@ void write_motion_summary(const std::filesystem::path& path, const MotionRecord&
   j["cogging_period_deg"] = {{"expected", r.cogging_period_expected * kDeg},
                              {"from_torque", r.cogging_period_measured * kDeg}};
   j["load_angle_deg"] = rec.load_angle * kDeg;
+  if (!rec.sampling_warning.empty()) j["warnings"] = {rec.sampling_warning};
   j["speed_rad_per_s"] = r.speed;
   j["inductance_H"] = {{"apparent_mean", mean_inductances(r, false)},
                        {"incremental_mean", mean_inductances(r, true)},
@@ -138,8 +149,12 @@ void write_motion_summary(const std::filesystem::path& path, const MotionRecord&
                  {"solve_seconds", rec.stats.solve_seconds}};
   if (!r.iron_loss.empty()) {
     json loss = json::object();
-    for (const auto& [region, watts] : r.iron_loss) loss[region] = watts;
-    j["iron_loss_W"] = loss;
+    double total = 0.0;
+    for (const auto& [region, watts] : r.iron_loss) loss[region] = watts, total += watts;
+    j["iron_loss_W"] = {{"total", total},
+                        {"per_region", loss},
+                        {"method", "Steinmetz-type law per time harmonic and Cartesian component of B in each "
+                                   "triangle over one electrical period (a common approximation; no excess loss)"}};
   }
   write_summary_document(path, j.dump(), rec.version, rec.inputs_json, rec.seconds, rec.files);
 }

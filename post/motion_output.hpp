@@ -11,6 +11,7 @@
 
 #include "mesh/mesh.hpp"
 #include "mesh/winding.hpp"
+#include "post/iron_loss.hpp"
 #include "post/motion_result.hpp"
 #include "solver/motion.hpp"
 
@@ -29,9 +30,13 @@ std::vector<std::string> write_motion_fields(const std::filesystem::path& dir, c
                                              const std::vector<Eigen::VectorXd>& fields,
                                              const std::vector<double>& step_time);
 
+/// iron_loss.csv (per region [W]) and iron_loss.vtu (loss density per triangle [W/m^3]).
+void write_iron_loss(const std::filesystem::path& dir, const mesh::Mesh& m, const IronLoss& loss);
+
 struct MotionRecord {
   std::string version, inputs_json;
   double load_angle = 0.0;  ///< synchronous studies: as placed [rad, electrical]
+  std::string sampling_warning;  ///< why the steps may not resolve the torque ripple; empty if they do
   const mesh::Mesh* mesh = nullptr;
   const mesh::Winding* winding = nullptr;
   const MotionResult* result = nullptr;

@@ -91,6 +91,18 @@ void write_field_vtu(const std::filesystem::path& path, const mesh::Mesh& m, con
   write_grid(path, grid);
 }
 
+void write_cell_field_vtu(const std::filesystem::path& path, const mesh::Mesh& m, const std::string& name,
+                          const Eigen::VectorXd& values) {
+  auto grid = grid_of(m);
+  vtkNew<vtkFloatArray> field;
+  field->SetName(name.c_str());
+  field->SetNumberOfValues(m.n_triangles());
+  for (int t = 0; t < m.n_triangles(); ++t) field->SetValue(t, static_cast<float>(values(t)));
+  grid->GetCellData()->AddArray(field);
+  grid->GetCellData()->SetActiveScalars(name.c_str());
+  write_grid(path, grid);
+}
+
 void write_collection(const std::filesystem::path& path, const std::vector<CollectionEntry>& entries) {
   write_atomically(path, [&](std::ostream& out) {
     out << "<?xml version=\"1.0\"?>\n<VTKFile type=\"Collection\" version=\"0.1\">\n  <Collection>\n";

@@ -16,6 +16,16 @@ struct BhTable {
   double stacking_factor = 1.0;
 };
 
+/// Iron-loss coefficients of a steel (a Steinmetz-type law, post/iron_loss.hpp); k_h = k_e = 0: no
+/// estimate.
+struct IronLossData {
+  double hysteresis = 0.0;  ///< k_h [W/kg / (Hz T^exponent)]
+  double exponent = 2.0;    ///< Steinmetz exponent [-]
+  double eddy = 0.0;        ///< k_e [W/kg / (Hz T)^2]
+  double density = 7650.0;  ///< mass density [kg/m^3]
+  std::string source;       ///< where the coefficients come from
+};
+
 struct Materials {
   double stator_iron_mu_r = 1000.0;  ///< relative permeability of the stator laminations
   double rotor_iron_mu_r = 1000.0;
@@ -24,6 +34,9 @@ struct Materials {
   /// Nonlinear iron: when given, the curve replaces the relative permeability (magnetostatics only).
   std::optional<BhTable> stator_iron_bh{};
   std::optional<BhTable> rotor_iron_bh{};
+  /// Iron-loss coefficients, when given (studies over one electrical period).
+  std::optional<IronLossData> stator_iron_loss{};
+  std::optional<IronLossData> rotor_iron_loss{};
   // Conductivities [S/m] for eddy currents (time-harmonic studies); 0 is an insulator or laminations.
   double stator_iron_sigma = 0.0;
   double rotor_iron_sigma = 0.0;

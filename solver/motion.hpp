@@ -36,7 +36,9 @@ struct MotionStats {
   int n_dofs = 0;
   int n_solves = 0;
   int n_iterations = 0;   ///< Newton iterations summed over the solves
-  double analyse_seconds = 0.0;  ///< set-up with the first analysis (ordering search), and the later symbolic ones
+  /// Set-up with the first analysis, and at every new rotor position the new numbering, the new
+  /// sparsity pattern and its symbolic analysis (all of what a turn costs before factorizing).
+  double analyse_seconds = 0.0;
   double solve_seconds = 0.0;    ///< everything else of the solves: assembly, factorizations, back-substitution
 };
 
@@ -68,8 +70,6 @@ class MotionSolver {
   const MotionStats& stats() const;
 
  private:
-  PositionField solve_with(int shift, const std::vector<double>& currents, bool warm_start,
-                           const NewtonControls& controls);
   struct Impl;
   std::unique_ptr<Impl> impl_;
 };

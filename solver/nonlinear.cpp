@@ -210,6 +210,9 @@ NewtonReport NonlinearSolver::solve(const Eigen::VectorXd& f, Eigen::VectorXd& a
       report.step_lengths.push_back(alpha);
       report.converged = r.norm() <= controls_.tolerance * f_norm && report.update <= controls_.tolerance * a.norm();
     }
+    // The factor holds the Jacobian of the last step's start, which the tolerance puts within a
+    // relative 1e-6 or so of the solution's: good for small-signal (incremental) solves.
+    if (report.converged) factorized_ = Matrix::jacobian;
   }
   report.residual = residual(a, f).norm();
   last_solution_ = a;
@@ -219,14 +222,14 @@ NewtonReport NonlinearSolver::solve(const Eigen::VectorXd& f, Eigen::VectorXd& a
 
 Eigen::VectorXd NonlinearSolver::predict(const Eigen::VectorXd& f) {
   assert(f.size() == n_dofs_);
-  if (linear_ || last_b_squared_.empty()) return Eigen::VectorXd::Zero(n_dofs_);
+  if (!linear_ && last_b_squared_.empty()) return Eigen::VectorXd::Zero(n_dofs_);
   // The secant reluctivity of each triangle as the last solution left it: the iron saturates
   // where it did, and only the change since then is left to Newton.
   double* values = matrix_.valuePtr();
   std::fill(values, values + matrix_.nonZeros(), 0.0);
   for (std::size_t t = 0; t < elements_.size(); ++t) {
     const Element& e = elements_[t];
-    const double nu = material_of(laws_[static_cast<std::size_t>(e.region)], last_b_squared_[t]).nu;
+    const double nu = material_of(laws_[static_cast<std::size_t>(e.region)], linear_ ? 0.0 : last_b_squared_[t]).nu;
     for (int ij = 0; ij < 9; ++ij)
       if (e.value_index[static_cast<std::size_t>(ij)] >= 0)
         values[e.value_index[static_cast<std::size_t>(ij)]] += nu * e.unit_stiffness(ij / 3, ij % 3);

@@ -62,14 +62,17 @@ class NonlinearSolver {
 
   /// A starting point for solve() after the sources or the numbering changed (the rotor turned):
   /// the linear solution with every triangle's secant reluctivity frozen at the last solution
-  /// (one factorization). Zero before the first solve, and for linear problems.
+  /// (one factorization); for a linear problem the solution itself. Zero before the first solve of a
+  /// nonlinear problem.
   Eigen::VectorXd predict(const Eigen::VectorXd& f);
 
   /// B^2 [T^2] of every triangle for the potentials a (#dofs), indexed like m.triangles.
   std::vector<double> triangle_b_squared(const Eigen::VectorXd& a) const;
 
   /// Solves J x = rhs (#dofs by #columns) with the consistent Jacobian J = dK(a)a/da at the last
-  /// solution: the small-signal (incremental) response, e.g. incremental inductances.
+  /// solution: the small-signal (incremental) response, e.g. incremental inductances. After a
+  /// converged Newton run it reuses the factor of the last Newton step (the Jacobian at the start of
+  /// that step, within the Newton tolerance of the solution) instead of factorizing again.
   Eigen::MatrixXd solve_incremental(const Eigen::MatrixXd& rhs);
   /// Solves K(nu) x = rhs with the secant reluctivity nu = H/B of every triangle frozen at the
   /// last solution (frozen permeability), e.g. to split flux linkage between sources.
@@ -82,9 +85,6 @@ class NonlinearSolver {
   /// coenergy(a) at the solution, and stationary there (the solution minimises the functional), so
   /// an iterate near it gives the co-energy with an error of the order of the squared field error.
   double coenergy_stationary(const Eigen::VectorXd& f, const Eigen::VectorXd& a) const;
-
-  /// Changes the Newton controls for the following solves.
-  void set_controls(NewtonControls controls) { controls_ = controls; }
 
   /// Co-energy per metre, sum over triangles of area * (B H - w(B)) [J/m]; a linear region
   /// contributes nu B^2 / 2 (equal to its energy).

@@ -11,41 +11,14 @@
 #include <iterator>
 #include <nlohmann/json.hpp>
 #include <string>
-#include <sys/wait.h>
+
+#include "support/cli_run.hpp"
 
 namespace fs = std::filesystem;
-
-namespace {
-
-struct Outcome {
-  int status;
-  std::string output;  // standard output and standard error together
-};
-
-Outcome turnfield(const std::string& arguments) {
-  const std::string command = std::string(TF_BINARY) + " " + arguments + " 2>&1";
-  FILE* pipe = popen(command.c_str(), "r");
-  REQUIRE(pipe != nullptr);
-  std::string output;
-  std::array<char, 4096> buffer{};
-  while (fgets(buffer.data(), buffer.size(), pipe)) output += buffer.data();
-  const int raw = pclose(pipe);
-  return {WIFEXITED(raw) ? WEXITSTATUS(raw) : -1, output};
-}
-
-fs::path fresh_folder(const std::string& name) {
-  const fs::path dir = fs::temp_directory_path() / ("turnfield_test_" + name);
-  fs::remove_all(dir);
-  return dir;
-}
-
-nlohmann::json read_summary(const fs::path& dir) {
-  std::ifstream in(dir / "summary.json");
-  REQUIRE(in.good());
-  return nlohmann::json::parse(in);
-}
-
-}  // namespace
+using tf::testing::fresh_folder;
+using tf::testing::Outcome;
+using tf::testing::read_summary;
+using tf::testing::turnfield;
 
 TEST_CASE("every bad case file: exit status 2, a message naming the file and line, and nothing written") {
   const fs::path bad = fs::path(TF_SOURCE_DIR) / "tests" / "data" / "bad";
