@@ -14,7 +14,7 @@ namespace {
 
 constexpr double kDeg = 180.0 / 3.14159265358979323846;
 const char* kSupplyKinds[] = {"balanced", "phasors", "stepped_dc", "split_phase"};
-const char* kRotorKinds[] = {"none", "iron", "surface_magnet", "slotted"};  // in mesh::RotorKind order
+const char* kRotorKinds[] = {"none", "iron", "magnets", "slotted"};  // mesh::RotorKind order, case-file spelling
 const char* kElements[] = {"resistor", "inductor", "capacitor"};
 
 nlohmann::json supply_json(const solver::Supply& s) {
@@ -39,6 +39,17 @@ nlohmann::json supply_json(const solver::Supply& s) {
   return j;
 }
 
+nlohmann::json bh_json(const std::optional<solver::BhTable>& t) {
+  if (!t) return nullptr;
+  return {{"h_A_per_m", t->h}, {"b_T", t->b}, {"stacking_factor", t->stacking_factor}, {"source", t->source}};
+}
+
+nlohmann::json loss_json(const std::optional<solver::IronLossData>& d) {
+  if (!d) return nullptr;
+  return {{"hysteresis", d->hysteresis}, {"exponent", d->exponent}, {"eddy", d->eddy},
+          {"density_kg_per_m3", d->density}, {"source", d->source}};
+}
+
 nlohmann::json materials_json(const solver::Materials& m) {
   return {{"stator_iron_relative_permeability", m.stator_iron_mu_r},
           {"rotor_iron_relative_permeability", m.rotor_iron_mu_r},
@@ -47,7 +58,32 @@ nlohmann::json materials_json(const solver::Materials& m) {
           {"stator_iron_conductivity_S_per_m", m.stator_iron_sigma},
           {"rotor_iron_conductivity_S_per_m", m.rotor_iron_sigma},
           {"shaft_conductivity_S_per_m", m.shaft_sigma},
-          {"sleeve_conductivity_S_per_m", m.sleeve_sigma}};
+          {"sleeve_conductivity_S_per_m", m.sleeve_sigma},
+          {"magnet_remanence_T", m.magnet_remanence},
+          {"magnet_recoil_permeability", m.magnet_mu_rec},
+          {"bar_conductivity_S_per_m", m.bar_sigma},
+          {"stator_iron_bh_curve", bh_json(m.stator_iron_bh)},
+          {"rotor_iron_bh_curve", bh_json(m.rotor_iron_bh)},
+          {"stator_iron_loss", loss_json(m.stator_iron_loss)},
+          {"rotor_iron_loss", loss_json(m.rotor_iron_loss)}};
+}
+
+/// The rotor's magnets or bars as given.
+nlohmann::json rotor_parts_json(const mesh::RotorGeometry& r) {
+  if (r.kind == mesh::RotorKind::surface_magnet)
+    return {{"magnets",
+             {{"poles", r.magnets.n_poles},
+              {"thickness_m", r.magnets.thickness},
+              {"arc_deg", r.magnets.arc * 180.0 / std::numbers::pi},
+              {"magnetization", r.magnets.direction == mesh::Magnetization::radial ? "radial" : "parallel"}}}};
+  if (r.kind == mesh::RotorKind::slotted)
+    return {{"bars",
+             {{"count", r.slots.count},
+              {"width_m", r.slots.width},
+              {"depth_m", r.slots.depth},
+              {"bridge_m", r.slots.bridge},
+              {"opening_m", r.slots.opening_width}}}};
+  return nlohmann::json::object();
 }
 
 /// The stator as given, with the dimensions of its kind: slots, poles or conductor sectors.
@@ -125,6 +161,7 @@ std::string case_to_json(const Case& c) {
         {"harmonics", c.study.max_harmonic}}},
       {"mesh", {{"fineness", c.mesh.fineness}, {"elements_per_skin_depth", c.mesh.elements_per_skin_depth}}},
   };
+  j["rotor"].update(rotor_parts_json(r));
   return j.dump();
 }
 
