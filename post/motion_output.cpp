@@ -115,7 +115,8 @@ void write_motion_summary(const std::filesystem::path& path, const MotionRecord&
   j["mesh"] = {{"nodes", rec.mesh->n_nodes()},
                {"triangles", rec.mesh->n_triangles()},
                {"sliding_circle_nodes", rec.mesh->sliding.stator_nodes.size()},
-               {"rotor_step_resolution_deg", 360.0 / static_cast<double>(rec.mesh->sliding.stator_nodes.size())}};
+               {"rotor_step_resolution_deg", 360.0 / static_cast<double>(rec.mesh->sliding.stator_nodes.size() *
+                                                                  static_cast<std::size_t>(rec.mesh->symmetry.copies))}};
   j["torque"] = {{"arkkio", torque_json(r.arkkio)},
                  {"circle", torque_json(r.circle)},
                  {"virtual_work", torque_json(r.virtual_work)},
