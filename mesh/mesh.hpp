@@ -66,6 +66,7 @@ struct Symmetry {
   bool anti_periodic = false;
   /// (node on an end cut, its image on the start cut of the same side), stator and rotor cuts,
   /// matched by radius: the first shares the second's unknown with the sign -1 when anti_periodic.
+  /// The rotor's centre lies on both of its cuts and is paired with itself (A = 0 there when anti-periodic).
   std::vector<std::pair<int, int>> cut_pairs;
   /// Sign of the image of the field `copy` sectors on: -1 for odd copies of an anti-periodic model.
   int sign_of_copy(int copy) const { return anti_periodic && copy % 2 != 0 ? -1 : 1; }

@@ -40,10 +40,14 @@ DofMap number_dofs(const mesh::Mesh& m, int rotor_shift) {
     links[rotor[i]] = {m.sliding.stator_nodes[p - wraps * n], anti && wraps % 2 != 0 ? -1 : 1};
   }
   const int cut_sign = anti ? -1 : 1;
-  for (const auto& [node, image] : m.symmetry.cut_pairs) links[node] = {image, cut_sign};
-  for (const auto& [node, partner] : m.ties) links[node] = {partner, 1};
   std::vector<char> done(n_nodes, 0);
   for (int node : m.outer_nodes) done[node] = 1;  // A = 0 wins over any link
+  for (const auto& [node, image] : m.symmetry.cut_pairs) {
+    // The centre lies on both cuts of a rotor sector: its own image. Anti-periodic, A = -A there: 0.
+    if (node == image) done[node] = anti ? 1 : done[node];
+    else links[node] = {image, cut_sign};
+  }
+  for (const auto& [node, partner] : m.ties) links[node] = {partner, 1};
   for (int node = 0; node < n_nodes; ++node)
     if (!done[node] && links[node].master < 0) {
       d.dof_of_node[node] = d.n_dofs++;
