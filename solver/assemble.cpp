@@ -52,10 +52,10 @@ Eigen::SparseMatrix<double> assemble_stiffness(const mesh::Mesh& m, const DofMap
     for (int i = 0; i < 3; ++i) {
       const int di = d.dof_of_node[m.triangles(t, i)];
       if (di < 0) continue;
-      const int si = d.sign_of_node[m.triangles(t, i)];
+      const double si = d.sign(m.triangles(t, i));
       for (int j = 0; j < 3; ++j) {
         const int dj = d.dof_of_node[m.triangles(t, j)];
-        if (dj >= 0) triplets.emplace_back(di, dj, si * d.sign_of_node[m.triangles(t, j)] * k(i, j));
+        if (dj >= 0) triplets.emplace_back(di, dj, si * d.sign(m.triangles(t, j)) * k(i, j));
       }
     }
   }
@@ -73,7 +73,7 @@ Eigen::VectorXd region_current_load(const mesh::Mesh& m, const DofMap& d, const 
     const double share = jt * mesh::triangle_area(m, t) / 3.0;
     for (int i = 0; i < 3; ++i) {
       const int di = d.dof_of_node[m.triangles(t, i)];
-      if (di >= 0) f(di) += d.sign_of_node[m.triangles(t, i)] * share;
+      if (di >= 0) f(di) += d.sign(m.triangles(t, i)) * share;
     }
   }
   return f;

@@ -61,14 +61,14 @@ Eigen::MatrixXd to_nodes(const DofMap& d, const Eigen::MatrixXd& x) {
   Eigen::MatrixXd a = Eigen::MatrixXd::Zero(static_cast<Eigen::Index>(d.dof_of_node.size()), x.cols());
   for (std::size_t node = 0; node < d.dof_of_node.size(); ++node)
     if (d.dof_of_node[node] >= 0)
-      a.row(static_cast<Eigen::Index>(node)) = static_cast<double>(d.sign_of_node[node]) * x.row(d.dof_of_node[node]);
+      a.row(static_cast<Eigen::Index>(node)) = d.sign(static_cast<int>(node)) * x.row(d.dof_of_node[node]);
   return a;
 }
 
 Eigen::VectorXd gather(const DofMap& d, const Eigen::VectorXd& nodal) {
   Eigen::VectorXd f = Eigen::VectorXd::Zero(d.n_dofs);
   for (std::size_t node = 0; node < d.dof_of_node.size(); ++node)
-    if (d.dof_of_node[node] >= 0) f(d.dof_of_node[node]) += d.sign_of_node[node] * nodal(static_cast<Eigen::Index>(node));
+    if (d.dof_of_node[node] >= 0) f(d.dof_of_node[node]) += d.sign(static_cast<int>(node)) * nodal(static_cast<Eigen::Index>(node));
   return f;
 }
 

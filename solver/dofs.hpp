@@ -15,8 +15,11 @@ namespace tf::solver {
 
 struct DofMap {
   std::vector<int> dof_of_node;          ///< #nodes; -1 where A = 0
-  std::vector<signed char> sign_of_node;  ///< #nodes; +1, or -1 for images across an anti-periodic cut
+  std::vector<signed char> sign_of_node;  ///< #nodes; +1, or -1 for images across an anti-periodic cut;
+                                          ///< empty: every sign +1 (a numbering made by hand)
   int n_dofs = 0;
+  /// The sign of a node's share in its unknown: A(node) = sign(node) * x(dof_of_node[node]).
+  double sign(int node) const { return sign_of_node.empty() ? 1.0 : sign_of_node[static_cast<std::size_t>(node)]; }
 };
 
 /// rotor_shift: rotor-side sliding node i (at position p = rotor_first + i) is tied to stator-side

@@ -63,7 +63,7 @@ void NonlinearSolver::set_dofs(const DofMap& d) {
     Element& e = elements_[static_cast<std::size_t>(t)];
     for (int i = 0; i < 3; ++i) {
       e.dofs(i) = d.dof_of_node[static_cast<std::size_t>(mesh_.triangles(t, i))];
-      e.signs(i) = d.sign_of_node[static_cast<std::size_t>(mesh_.triangles(t, i))];
+      e.signs(i) = d.sign(mesh_.triangles(t, i));
     }
     for (int i = 0; i < 3; ++i)
       for (int j = 0; j < 3; ++j)
