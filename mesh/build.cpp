@@ -53,6 +53,20 @@ double narrowest_part(const Geometry& g) {
   return std::min({s.belts.outer_radius - s.bore_radius, conductor, air, ring, rotor_narrowest(g.rotor)});
 }
 
+/// How many copies of the sector c asks for make the machine (1: the full model); throws MeshError
+/// when they do not close up round it.
+int sector_copies(const Geometry& g, const MeshControls& c) {
+  const int n_slots = g.stator.n_slots;
+  const int sector_slots = c.sector_slots > 0 ? c.sector_slots : n_slots;
+  const int copies = n_slots / sector_slots;
+  if (sector_slots > n_slots || n_slots % sector_slots != 0 || (c.anti_periodic && copies % 2 != 0))
+    throw MeshError("a sector of " + std::to_string(c.sector_slots) + " slot pitches does not repeat round " +
+                    std::to_string(n_slots) + " slots" + (c.anti_periodic ? " an even number of times" : ""));
+  if (copies > 1 && g.stator.open_boundary)
+    throw MeshError("a sector model cannot have an open boundary; use the full model");
+  return copies;
+}
+
 }  // namespace
 
 ElementSizes element_sizes(const Geometry& g, const MeshControls& c) {
@@ -93,12 +107,7 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
   };
   const int n_slots = g.stator.n_slots;
   const int sector_slots = c.sector_slots > 0 ? c.sector_slots : n_slots;
-  const int copies = n_slots / sector_slots;
-  if (sector_slots > n_slots || n_slots % sector_slots != 0 || (c.anti_periodic && copies % 2 != 0))
-    throw MeshError("a sector of " + std::to_string(c.sector_slots) + " slot pitches does not repeat round " +
-                    std::to_string(n_slots) + " slots" + (c.anti_periodic ? " an even number of times" : ""));
-  if (copies > 1 && g.stator.open_boundary)
-    throw MeshError("a sector model cannot have an open boundary; use the full model");
+  const int copies = sector_copies(g, c);
   const int n_rotor = detail::rotor_sector_count(g, copies);
   if (n_rotor == 0)
     throw MeshError("the rotor does not repeat every " + std::to_string(sector_slots) +

@@ -235,9 +235,7 @@ void set_sector_sliding(Mesh& m, const Copies& sc, const Copies& rc, NodeSets& s
 Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies, const SectorMesh& rotor,
                int n_rotor_copies, const SectorMesh* image, bool anti_periodic) {
   const int n_slots = g.stator.n_slots;
-  const bool sector = n_stator_copies < n_slots;
-  if (sector && (image || n_slots % n_stator_copies != 0))
-    throw MeshError("a sector model needs a whole number of sectors round the machine and no open boundary");
+  const bool sector = n_stator_copies < n_slots;  // build.cpp has checked that the sectors close up
   const Copies sc{&stator, n_stator_copies, 0};
   const Copies rc{&rotor, n_rotor_copies, n_stator_copies * static_cast<int>(stator.nodes.rows())};
   const int image_first = rc.first_id + n_rotor_copies * static_cast<int>(rotor.nodes.rows());
@@ -293,12 +291,10 @@ Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies,
   m.sliding.radius = g.mid_gap_radius();
   m.sliding.start_angle = stator.start_angle;
   if (sector) {
-    m.symmetry.copies = n_slots / n_stator_copies;
-    m.symmetry.anti_periodic = anti_periodic;
+    m.symmetry = {n_slots / n_stator_copies, anti_periodic, {}};
     pair_open_cuts(sc, sets, new_id, m.symmetry.cut_pairs);
     pair_open_cuts(rc, sets, new_id, m.symmetry.cut_pairs);
-    const int n_full = n_slots * (static_cast<int>(stator.sliding.size()) - 1);
-    set_sector_sliding(m, sc, rc, sets, new_id, stator.start_angle, n_full);
+    set_sector_sliding(m, sc, rc, sets, new_id, stator.start_angle, n_slots * (static_cast<int>(stator.sliding.size()) - 1));
   } else {
     m.sliding.stator_nodes = sliding_nodes(sc, sets, new_id, stator.start_angle, angle_tolerance);
     m.sliding.rotor_nodes = sliding_nodes(rc, sets, new_id, stator.start_angle, angle_tolerance);
