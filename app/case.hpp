@@ -25,6 +25,8 @@ struct Case {
   solver::Supply supply;
   Study study;
   mesh::MeshControls mesh;
+  /// Solve the whole cross-section even when a sector would do ([mesh] model = "full").
+  bool full_model = false;
 };
 
 }  // namespace tf::app

@@ -206,10 +206,11 @@ Study read_study(const Fields& root, const solver::Supply& supply) {
   return s;
 }
 
-mesh::MeshControls read_mesh(const Fields& root) {
+mesh::MeshControls read_mesh(const Fields& root, bool& full_model) {
   mesh::MeshControls m;
-  if (const auto f = root.optional_table("mesh", {"fineness", "elements_per_skin_depth"})) {
+  if (const auto f = root.optional_table("mesh", {"fineness", "elements_per_skin_depth", "model"})) {
     m.fineness = f->real_or("fineness", m.fineness, {.min = 0.1, .max = 20});
+    full_model = f->choice_or("model", {"auto", "full"}, 0) == 1;
     // Turned into sizes by the eddy-current study, which knows the frequencies.
     m.elements_per_skin_depth = f->real_or("elements_per_skin_depth", 0.0, {.min = 0, .max = 50});
   }
@@ -230,7 +231,7 @@ Case read_fields(const Document& doc) {
   c.winding = read_winding(root, c.geometry.stator);
   c.supply = read_supply(root, c.winding.n_phases);
   c.study = read_study(root, c.supply);
-  c.mesh = read_mesh(root);
+  c.mesh = read_mesh(root, c.full_model);
   return c;
 }
 

@@ -241,6 +241,7 @@ void print_motion(std::ostream& out, const Case& c, const post::MotionResult& r,
     for (const auto& [region, watts] : r.iron_loss) total += watts;
     out << fmt::format("  iron loss {:.4g} W (Steinmetz-type estimate, iron_loss.csv)\n", total);
   }
+  out << fmt::format("  solved on {}\n", model_description(*rec.mesh));
   out << fmt::format("  results in {}\n", dir.string());
   out << "  " << post::kSafetyCaution << "\n";
 }

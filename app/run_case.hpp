@@ -2,10 +2,13 @@
 // The whole path of one case: case -> mesh -> solve -> post -> files.
 
 #include <filesystem>
+#include <optional>
 #include <ostream>
+#include <string>
 
 #include "app/case.hpp"
 #include "mesh/mesh.hpp"
+#include "mesh/symmetry.hpp"
 #include "mesh/winding.hpp"
 #include "post/rotation_metrics.hpp"
 
@@ -18,12 +21,22 @@ struct RunOptions {
   bool all_field_files = false;  ///< a VTU file for every step instead of study.field_files
 };
 
-/// The mesh of a case and its winding laid out on it: the first step of every study.
+/// The mesh of a case and its winding laid out on it: the first step of every study. The mesh is
+/// one sector of the machine when the winding and the rotor repeat (mesh::choose_sector), unless
+/// the case asks for the full model or its study or parts are not yet checked on sectors
+/// (eddy currents, salient-pole and slotless stators, bar rotors, open boundaries).
 struct MeshedCase {
   mesh::Mesh mesh;
   mesh::Winding winding;
 };
 MeshedCase mesh_and_wind(const Case& c);
+
+/// The sector a case is solved on, if any (see mesh_and_wind).
+std::optional<mesh::SectorChoice> model_sector(const Case& c, const mesh::Winding& w);
+
+/// One line saying which model was solved, e.g. "one sector of 6 slots (1/4 of the machine,
+/// anti-periodic)".
+std::string model_description(const mesh::Mesh& m);
 
 /// The headline numbers of one run, for comparisons.
 struct Headline {

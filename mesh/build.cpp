@@ -5,6 +5,7 @@
 #include <numbers>
 #include <numeric>
 #include <sstream>
+#include <string>
 
 #include "mesh/gmsh_session.hpp"
 #include "mesh/replicate.hpp"
@@ -52,6 +53,20 @@ double narrowest_part(const Geometry& g) {
   return std::min({s.belts.outer_radius - s.bore_radius, conductor, air, ring, rotor_narrowest(g.rotor)});
 }
 
+/// How many copies of the sector c asks for make the machine (1: the full model); throws MeshError
+/// when they do not close up round it.
+int sector_copies(const Geometry& g, const MeshControls& c) {
+  const int n_slots = g.stator.n_slots;
+  const int sector_slots = c.sector_slots > 0 ? c.sector_slots : n_slots;
+  const int copies = n_slots / sector_slots;
+  if (sector_slots > n_slots || n_slots % sector_slots != 0 || (c.anti_periodic && copies % 2 != 0))
+    throw MeshError("a sector of " + std::to_string(c.sector_slots) + " slot pitches does not repeat round " +
+                    std::to_string(n_slots) + " slots" + (c.anti_periodic ? " an even number of times" : ""));
+  if (copies > 1 && g.stator.open_boundary)
+    throw MeshError("a sector model cannot have an open boundary; use the full model");
+  return copies;
+}
+
 }  // namespace
 
 ElementSizes element_sizes(const Geometry& g, const MeshControls& c) {
@@ -91,7 +106,12 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
     return std::min(cap, h.gap + h.grading * away);
   };
   const int n_slots = g.stator.n_slots;
-  const int n_rotor = detail::rotor_sector_count(g);
+  const int sector_slots = c.sector_slots > 0 ? c.sector_slots : n_slots;
+  const int copies = sector_copies(g, c);
+  const int n_rotor = detail::rotor_sector_count(g, copies);
+  if (n_rotor == 0)
+    throw MeshError("the rotor does not repeat every " + std::to_string(sector_slots) +
+                    " slot pitches; use the full model");
   const int per_slot = nodes_per_slot(std::max(2, static_cast<int>(std::ceil(2 * kPi * r_slide / n_slots / h.gap))),
                                       n_slots, n_rotor, c.sliding_multiple);
   const int n_sliding = n_slots * per_slot;
@@ -110,7 +130,7 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
     const detail::SectorMesh stator = detail::mesh_stator_sector(g, layers, per_slot, size);
     const double rotor_start = detail::rotor_start_angle(g, stator.start_angle, n_sliding, n_rotor);
     const detail::SectorMesh rotor = detail::mesh_rotor_sector(g, n_rotor, rotor_start, n_sliding / n_rotor, size);
-    return detail::replicate(g, stator, n_slots, rotor, n_rotor);
+    return detail::replicate(g, stator, sector_slots, rotor, n_rotor / copies, nullptr, c.anti_periodic);
   }
   // Open boundary: the boundary arc and its exterior image's arc are divided alike, so that their
   // nodes face each other; in the image, elements grow towards the centre (infinity).

@@ -17,7 +17,10 @@ ElementSizes element_sizes(const Geometry& g, const MeshControls& c);
 
 /// Meshes one stator slot pitch and one rotor sector with Gmsh and copies them round by rotation,
 /// merging the nodes on the cuts: every slot gets the identical mesh. `layers` says how each slot
-/// is divided among coil sides. Throws MeshError.
+/// is divided among coil sides. With c.sector_slots = S > 0, only the first S slot pitches (from
+/// the start cut of slot 1's pitch, at -pi/Q) and the rotor under them: a sector model whose
+/// Mesh::symmetry says how it repeats (the sliding circle keeps the full model's node pitch).
+/// Throws MeshError.
 Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c);
 
 }  // namespace tf::mesh

@@ -135,6 +135,11 @@ struct MeshControls {
   /// The node count of the sliding circle is made a multiple of this: a rotor-position study
   /// stepping by a given angle needs that step to be a whole number of node pitches.
   int sliding_multiple = 1;
+  /// A sector model of this many stator slot pitches (pole pitches of a salient-pole stator, belt
+  /// pitches of a slotless one) from the start cut of slot 1's pitch; 0 for the full model. Take it
+  /// and anti_periodic from mesh::choose_sector, which checks that the winding and the rotor repeat.
+  int sector_slots = 0;
+  bool anti_periodic = false;  ///< the field changes sign from one sector to the next
 };
 
 }  // namespace tf::mesh

@@ -25,12 +25,17 @@ bool on_rotor_side(const Region& r) {
   }
 }
 
-Mesh with_rotor_turned(const Mesh& m, double angle) {
-  Mesh out = m;
-  std::vector<bool> turns(m.n_nodes(), false);
+std::vector<bool> rotor_side_nodes(const Mesh& m) {
+  std::vector<bool> rotor(m.n_nodes(), false);
   for (int t = 0; t < m.n_triangles(); ++t)
     if (on_rotor_side(m.regions[m.triangle_region(t)]))
-      for (int j = 0; j < 3; ++j) turns[m.triangles(t, j)] = true;
+      for (int j = 0; j < 3; ++j) rotor[m.triangles(t, j)] = true;
+  return rotor;
+}
+
+Mesh with_rotor_turned(const Mesh& m, double angle) {
+  Mesh out = m;
+  const std::vector<bool> turns = rotor_side_nodes(m);
   const double c = std::cos(angle), s = std::sin(angle);
   for (int i = 0; i < m.n_nodes(); ++i)
     if (turns[i]) out.nodes.row(i) = Eigen::RowVector2d(c * m.nodes(i, 0) - s * m.nodes(i, 1), s * m.nodes(i, 0) + c * m.nodes(i, 1));

@@ -1,5 +1,6 @@
 #pragma once
-// The mesh of a whole cross-section: first-order triangles, each tagged with a named region.
+// The mesh of a whole cross-section, or of a periodic or anti-periodic sector of it: first-order
+// triangles, each tagged with a named region.
 
 #include <stdexcept>
 #include <string>
@@ -47,6 +48,28 @@ struct SlidingCircle {
   double start_angle = 0.0;  ///< [rad]
   std::vector<int> stator_nodes;
   std::vector<int> rotor_nodes;
+  /// Sector models only (Mesh::symmetry.copies > 1): the lists hold the n/copies nodes of one
+  /// sector, stator node i at start_angle + 2*pi*i/n and rotor node i at the position
+  /// rotor_first + i (rotor sectors may start a few pitches later than the stator's). The nodes
+  /// one pitch past the last, on the end cuts, are stator_end and rotor_end: they are images of
+  /// node 0 of their side (Symmetry::cut_pairs) and close the last chord. Full model: 0, -1, -1.
+  int rotor_first = 0;
+  int stator_end = -1;
+  int rotor_end = -1;
+};
+
+/// How a sector model stands for the whole cross-section. The mesh spans 2*pi/copies from the
+/// stator's start cut; the field in the copy k sectors on (counter-clockwise) is the field of the
+/// model times (-1)^k when anti_periodic, else the same. The full model: copies = 1, no pairs.
+struct Symmetry {
+  int copies = 1;
+  bool anti_periodic = false;
+  /// (node on an end cut, its image on the start cut of the same side), stator and rotor cuts,
+  /// matched by radius: the first shares the second's unknown with the sign -1 when anti_periodic.
+  /// The rotor's centre lies on both of its cuts and is paired with itself (A = 0 there when anti-periodic).
+  std::vector<std::pair<int, int>> cut_pairs;
+  /// Sign of the image of the field `copy` sectors on: -1 for odd copies of an anti-periodic model.
+  int sign_of_copy(int copy) const { return anti_periodic && copy % 2 != 0 ? -1 : 1; }
 };
 
 struct Mesh {
@@ -60,6 +83,7 @@ struct Mesh {
   /// Pairs (node, partner): the node shares its partner's unknown. Used to join the exterior image
   /// to the boundary circle (the Kelvin transformation), whose nodes sit apart in the drawing.
   std::vector<std::pair<int, int>> ties;
+  Symmetry symmetry;                ///< the full model unless mesh::build was asked for a sector
   double gap_inner_radius = 0.0;    ///< rotor surface [m]
   double gap_outer_radius = 0.0;    ///< stator bore [m]
 
@@ -72,6 +96,9 @@ int find_region(const Mesh& m, RegionKind kind, int slot = 0, int layer = 0);
 
 /// True for the parts that turn with the rotor, including the gap band inside the sliding circle.
 bool on_rotor_side(const Region& r);
+
+/// Nodes of rotor-side triangles (the rotor side of the sliding circle included), #nodes.
+std::vector<bool> rotor_side_nodes(const Mesh& m);
 
 /// The mesh drawn with its rotor turned by `angle` [rad] counter-clockwise: the nodes of every
 /// rotor-side triangle rotated (the rotor side of the sliding circle included), the rest unchanged.

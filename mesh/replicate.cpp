@@ -70,12 +70,14 @@ void tie_exterior(Mesh& m, const Copies& stator, const Copies& image, NodeSets& 
   m.outer_nodes = {new_id[sets.find(image.id(0, image.sector->start_cut.front()))]};  // the centre
 }
 
-void join_cuts(const Copies& c, NodeSets& sets, double tolerance) {
+/// Merges each copy's end cut with the next copy's start cut; round the whole circle when `closed`,
+/// else (a sector model) the last copy's end cut stays open.
+void join_cuts(const Copies& c, NodeSets& sets, double tolerance, bool closed = true) {
   const SectorMesh& s = *c.sector;
   if (s.start_cut.size() != s.end_cut.size())
     throw MeshError("the two cuts of a sector carry " + std::to_string(s.start_cut.size()) + " and " +
                     std::to_string(s.end_cut.size()) + " nodes; periodic meshing failed");
-  for (int k = 0; k < c.n_copies; ++k) {
+  for (int k = 0; k < (closed ? c.n_copies : c.n_copies - 1); ++k) {
     const int next = (k + 1) % c.n_copies;
     for (std::size_t i = 0; i < s.end_cut.size(); ++i) {
       const Eigen::Vector2d p = c.position(k, s.end_cut[i]), q = c.position(next, s.start_cut[i]);
@@ -176,10 +178,64 @@ std::vector<int> sliding_nodes(const Copies& c, NodeSets& sets, const std::vecto
   return nodes;
 }
 
+/// Sector model: pairs (node on the last copy's end cut, node on copy 0's start cut), by radius.
+void pair_open_cuts(const Copies& c, NodeSets& sets, const std::vector<int>& new_id, std::vector<std::pair<int, int>>& out) {
+  const SectorMesh& s = *c.sector;
+  for (std::size_t i = 0; i < s.end_cut.size(); ++i)
+    out.push_back({new_id[sets.find(c.id(c.n_copies - 1, s.end_cut[i]))], new_id[sets.find(c.id(0, s.start_cut[i]))]});
+}
+
+/// Sector model: the sliding-arc nodes of one side by position p (angle start + p * pitch), checked
+/// to sit on whole pitches; returns the nodes in order, the last one (on the end cut) included.
+std::vector<int> sector_sliding_nodes(const Copies& c, NodeSets& sets, const std::vector<int>& new_id, double start,
+                                      double pitch, double tolerance_angle, int& first_position) {
+  std::vector<std::pair<long, int>> by_position;
+  for (int k = 0; k < c.n_copies; ++k)
+    for (int node : c.sector->sliding) {
+      const Eigen::Vector2d p = c.position(k, node);
+      double a = std::atan2(p(1), p(0)) - start;
+      a -= kTwoPi * std::floor(a / kTwoPi + 1e-9);
+      const long position = std::lround(a / pitch);
+      if (std::abs(a - static_cast<double>(position) * pitch) > tolerance_angle)
+        throw MeshError("nodes on the sliding arc of the sector are not equally spaced");
+      by_position.push_back({position, new_id[sets.find(c.id(k, node))]});
+    }
+  std::sort(by_position.begin(), by_position.end());
+  by_position.erase(std::unique(by_position.begin(), by_position.end()), by_position.end());
+  std::vector<int> nodes;
+  for (std::size_t i = 0; i < by_position.size(); ++i) {
+    if (i > 0 && by_position[i].first != by_position[i - 1].first + 1)
+      throw MeshError("the sliding arc of the sector misses or repeats a node");
+    nodes.push_back(by_position[i].second);
+  }
+  first_position = by_position.empty() ? 0 : static_cast<int>(by_position.front().first);
+  return nodes;
+}
+
+/// Sector model: the sliding circle of one sector of n_sliding_full / copies pitches per side.
+void set_sector_sliding(Mesh& m, const Copies& sc, const Copies& rc, NodeSets& sets, const std::vector<int>& new_id,
+                        double start, int n_sliding_full) {
+  const double pitch = kTwoPi / n_sliding_full;
+  int stator_first = 0;
+  std::vector<int> stator = sector_sliding_nodes(sc, sets, new_id, start, pitch, 1e-6, stator_first);
+  std::vector<int> rotor = sector_sliding_nodes(rc, sets, new_id, start, pitch, 1e-6, m.sliding.rotor_first);
+  if (stator_first != 0 || stator.size() != rotor.size() ||
+      static_cast<int>(stator.size() - 1) * m.symmetry.copies != n_sliding_full)
+    throw MeshError("the stator and rotor arcs of the sector's sliding circle do not match");
+  m.sliding.stator_end = stator.back();
+  m.sliding.rotor_end = rotor.back();
+  stator.pop_back();
+  rotor.pop_back();
+  m.sliding.stator_nodes = std::move(stator);
+  m.sliding.rotor_nodes = std::move(rotor);
+}
+
 }  // namespace
 
 Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies, const SectorMesh& rotor,
-               int n_rotor_copies, const SectorMesh* image) {
+               int n_rotor_copies, const SectorMesh* image, bool anti_periodic) {
+  const int n_slots = g.stator.n_slots;
+  const bool sector = n_stator_copies < n_slots;  // build.cpp has checked that the sectors close up
   const Copies sc{&stator, n_stator_copies, 0};
   const Copies rc{&rotor, n_rotor_copies, n_stator_copies * static_cast<int>(stator.nodes.rows())};
   const int image_first = rc.first_id + n_rotor_copies * static_cast<int>(rotor.nodes.rows());
@@ -189,8 +245,8 @@ Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies,
   const int n_ids = image_first + ic.n_copies * static_cast<int>(ic.sector->nodes.rows());
   const double tolerance = 1e-7 * g.stator.outer_radius;
   NodeSets sets(n_ids);
-  join_cuts(sc, sets, tolerance);
-  join_cuts(rc, sets, tolerance);
+  join_cuts(sc, sets, tolerance, !sector);
+  join_cuts(rc, sets, tolerance, !sector);
   if (image) join_cuts(ic, sets, tolerance);
 
   Mesh m;
@@ -227,15 +283,22 @@ Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies,
           for (int j = 0; j < 3; ++j) centre += m.nodes.row(m.triangles(t, j)).transpose() / 3.0;
           m.triangle_region(t) = table.rotor_index(kind, rotor_feature_number(g.rotor, centre), n_rotor_features);
         } else {
-          m.triangle_region(t) = table.index(kind, k + 1, n_stator_copies, c == &rc);
+          m.triangle_region(t) = table.index(kind, k + 1, n_slots, c == &rc);
         }
       }
 
   const double angle_tolerance = 1e-6;
   m.sliding.radius = g.mid_gap_radius();
   m.sliding.start_angle = stator.start_angle;
-  m.sliding.stator_nodes = sliding_nodes(sc, sets, new_id, stator.start_angle, angle_tolerance);
-  m.sliding.rotor_nodes = sliding_nodes(rc, sets, new_id, stator.start_angle, angle_tolerance);
+  if (sector) {
+    m.symmetry = {n_slots / n_stator_copies, anti_periodic, {}};
+    pair_open_cuts(sc, sets, new_id, m.symmetry.cut_pairs);
+    pair_open_cuts(rc, sets, new_id, m.symmetry.cut_pairs);
+    set_sector_sliding(m, sc, rc, sets, new_id, stator.start_angle, n_slots * (static_cast<int>(stator.sliding.size()) - 1));
+  } else {
+    m.sliding.stator_nodes = sliding_nodes(sc, sets, new_id, stator.start_angle, angle_tolerance);
+    m.sliding.rotor_nodes = sliding_nodes(rc, sets, new_id, stator.start_angle, angle_tolerance);
+  }
   if (m.sliding.stator_nodes.size() != m.sliding.rotor_nodes.size())
     throw MeshError("the stator and rotor sides of the sliding circle carry different node counts");
   for (int k = 0; k < n_stator_copies; ++k)

@@ -13,8 +13,10 @@ namespace tf::mesh::detail {
 
 /// How many identical sectors the rotor is cut into: the largest divisor of the repeating count
 /// (slots Q for a smooth rotor or none, poles for magnets, bars for a cage) up to 36 (apex angle at
-/// least 10°); the count itself when it has no such divisor above 1.
-int rotor_sector_count(const Geometry& g);
+/// least 10°); the count itself when it has no such divisor above 1. For a sector model of the
+/// machine (`copies` sectors round it) the count must be a multiple of copies, so that whole rotor
+/// sectors tile the model; 0 when the rotor does not repeat `copies` times.
+int rotor_sector_count(const Geometry& g, int copies = 1);
 
 /// The angle [rad] where the rotor sector starts: one of the sliding-circle node angles
 /// first_node + 2*pi*i/n_sliding (so the rotor's arc carries the circle's nodes), chosen as far as

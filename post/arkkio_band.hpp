@@ -27,7 +27,8 @@ inline double stress_product(std::complex<double> br, std::complex<double> bt) {
 /// over every triangle of RegionKind::gap (both sides of the sliding circle). B is constant on a
 /// first-order triangle; it is split into polar components in the frame of the centroid. Rotor-side
 /// triangles hold B in the rotor's frame, but polar components are the same in either frame.
-/// a: #nodes nodal A_z [Wb/m] (real, or complex peak phasors).
+/// a: #nodes nodal A_z [Wb/m] (real, or complex peak phasors). Returns the whole machine's torque
+/// (a sector model's band times its copies).
 template <class Scalar>
 double arkkio_band_torque(const mesh::Mesh& m, const Eigen::Matrix<Scalar, Eigen::Dynamic, 1>& a,
                           double stack_length) {
@@ -50,7 +51,9 @@ double arkkio_band_torque(const mesh::Mesh& m, const Eigen::Matrix<Scalar, Eigen
     const Scalar br = cos_t * bx + sin_t * by, bt = -sin_t * bx + cos_t * by;
     sum += 0.5 * twice_area * r * stress_product(br, bt);
   }
-  return stack_length * sum / (mu0 * (m.gap_outer_radius - m.gap_inner_radius));
+  // A sector model's band is 1/copies of the whole; its images carry the same stress (B_r B_theta
+  // is even in the sign of A), so the whole machine's torque is copies times the sector's.
+  return m.symmetry.copies * stack_length * sum / (mu0 * (m.gap_outer_radius - m.gap_inner_radius));
 }
 
 }  // namespace tf::post::detail

@@ -23,8 +23,9 @@ struct GapOperators {
   std::vector<double> angles;        ///< the M sample angles [rad], 2*pi*j/M
   Eigen::SparseMatrix<double> br;    ///< M by #nodes: B_r [T] at the sample angles
   Eigen::SparseMatrix<double> bt;    ///< M by #nodes: B_theta [T] at the sample angles
-  Eigen::MatrixXcd harmonics;        ///< (max_order + 1) by #sliding nodes: c_n of B_r [T], n = 0..max_order
-  std::vector<int> circle_nodes;     ///< stator-side sliding nodes the harmonics read
+  Eigen::MatrixXcd harmonics;        ///< (max_order + 1) by #circle_nodes: c_n of B_r [T], n = 0..max_order
+  std::vector<int> circle_nodes;     ///< stator-side sliding nodes the harmonics read (a sector
+                                     ///< model's own; the harmonics fold its images in)
 };
 
 /// B_r: the normal flux density of each chord of the sliding circle, (a_{i+1} - a_i)/chord, which
@@ -34,6 +35,8 @@ struct GapOperators {
 /// there; differentiating its series avoids sampling a piecewise-constant B).
 /// rotor_shift: the rotor turned by that many node pitches, as in solver::number_dofs; the rotor-side
 /// triangle of rotor chord j then faces stator chord j + rotor_shift (only B_theta reads it).
+/// Sector models (m.symmetry): the operators cover the whole circle, unfolded from the model's
+/// nodes with the sign of each copy, so B_r, B_theta and the harmonics are the whole machine's.
 GapOperators gap_operators(const mesh::Mesh& m, int n_points, int max_order, int rotor_shift = 0);
 
 /// The harmonics c_n (rows n = 0..max_order) of nodal potentials a (#nodes by #columns).

@@ -38,6 +38,8 @@ IronLoss iron_loss(const mesh::Mesh& m, const FluxHistory& b, const std::vector<
     out.density(t) = c.density * per_kg;
     out.region_loss[static_cast<std::size_t>(r)] += out.density(t) * std::abs(mesh::triangle_area(m, t)) * stack_length;
   }
+  // A sector model stands for `copies` images of itself: regions and total are the whole machine's.
+  for (double& l : out.region_loss) l *= m.symmetry.copies;
   for (double l : out.region_loss) out.total += l;
   return out;
 }

@@ -39,8 +39,9 @@ struct FluxHistory {
 
 struct IronLoss {
   Eigen::VectorXd density;          ///< #triangles: loss per volume [W/m^3], 0 outside iron (for a field file)
-  std::vector<double> region_loss;  ///< per region, indexed like m.regions [W]
-  double total = 0.0;               ///< [W]
+  std::vector<double> region_loss;  ///< per region, indexed like m.regions [W]; whole machine (a sector
+                                    ///< model's regions times its copies)
+  double total = 0.0;               ///< whole machine [W]
 };
 
 /// Specific loss [W/kg] of one component sampled at K equal steps over one period of `frequency`:

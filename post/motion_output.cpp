@@ -97,10 +97,19 @@ std::vector<std::string> write_motion_fields(const std::filesystem::path& dir, c
   std::vector<std::string> files;
   if (steps.empty()) return files;
   std::vector<CollectionEntry> entries;
+  const std::vector<bool> rotor = mesh::rotor_side_nodes(m);
   for (std::size_t i = 0; i < steps.size(); ++i) {
     const int k = steps[i];
     const std::string name = fmt::format("field_{:04d}.vtu", k);
-    write_field_vtu(dir / name, mesh::with_rotor_turned(m, r.steps[k].rotor_angle), fields[i]);
+    // A sector model draws its rotor piece turned back by whole sectors into the stator's sector,
+    // showing the image of the field there (the sign flips once per sector when anti-periodic).
+    const double sector = 2 * std::numbers::pi / m.symmetry.copies;
+    const double turns = std::floor(r.steps[k].rotor_angle / sector);
+    Eigen::VectorXd a = fields[i];
+    if (m.symmetry.sign_of_copy(static_cast<int>(turns) % 2 == 0 ? 0 : 1) < 0)
+      for (int node = 0; node < m.n_nodes(); ++node)
+        if (rotor[static_cast<std::size_t>(node)]) a(node) = -a(node);
+    write_field_vtu(dir / name, mesh::with_rotor_turned(m, r.steps[k].rotor_angle - turns * sector), a);
     entries.push_back({step_time[k], name});
     files.push_back(name);
   }
@@ -124,8 +133,11 @@ void write_motion_summary(const std::filesystem::path& path, const MotionRecord&
   json j;
   j["mesh"] = {{"nodes", rec.mesh->n_nodes()},
                {"triangles", rec.mesh->n_triangles()},
-               {"sliding_circle_nodes", rec.mesh->sliding.stator_nodes.size()},
-               {"rotor_step_resolution_deg", 360.0 / static_cast<double>(rec.mesh->sliding.stator_nodes.size())}};
+               {"sliding_circle_nodes", rec.mesh->sliding.stator_nodes.size() * rec.mesh->symmetry.copies},
+               {"sector_copies", rec.mesh->symmetry.copies},
+               {"anti_periodic", rec.mesh->symmetry.anti_periodic},
+               {"rotor_step_resolution_deg", 360.0 / static_cast<double>(rec.mesh->sliding.stator_nodes.size() *
+                                                                  static_cast<std::size_t>(rec.mesh->symmetry.copies))}};
   j["torque"] = {{"arkkio", torque_json(r.arkkio)},
                  {"circle", torque_json(r.circle)},
                  {"virtual_work", torque_json(r.virtual_work)},

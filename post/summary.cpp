@@ -65,7 +65,9 @@ void write_summary(const std::filesystem::path& path, const RunRecord& r) {
   j["mesh"] = {{"nodes", r.mesh->n_nodes()},
                {"triangles", r.mesh->n_triangles()},
                {"regions", r.mesh->regions.size()},
-               {"sliding_circle_nodes", r.mesh->sliding.stator_nodes.size()},
+               {"sliding_circle_nodes", r.mesh->sliding.stator_nodes.size() * r.mesh->symmetry.copies},
+               {"sector_copies", r.mesh->symmetry.copies},
+               {"anti_periodic", r.mesh->symmetry.anti_periodic},
                {"sliding_circle_radius_m", r.mesh->sliding.radius}};
   j["winding"] = winding_summary(*r.winding);
   j["drive"] = json::parse(r.drive_json);

@@ -21,8 +21,9 @@ double virtual_work_torque(double coenergy_minus, double coenergy_plus, double a
   return (coenergy_plus - coenergy_minus) / (2 * angle_step);
 }
 
-double linear_coenergy(const Eigen::VectorXd& load, const Eigen::VectorXd& solution, double stack_length) {
-  return 0.5 * stack_length * load.dot(solution);
+double linear_coenergy(const Eigen::VectorXd& load, const Eigen::VectorXd& solution, double stack_length,
+                       int copies) {
+  return 0.5 * copies * stack_length * load.dot(solution);
 }
 
 }  // namespace tf::post

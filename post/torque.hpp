@@ -20,6 +20,7 @@ namespace tf::post {
 /// of the sliding circle), B per triangle split into polar components at its centroid (A. Arkkio,
 /// Analysis of induction motors based on the numerical solution of the magnetic field and circuit
 /// equations, Helsinki University of Technology, 1987). The gap band must be free of current.
+/// Returns the whole machine's torque: a sector model (m.symmetry) multiplies its band by its copies.
 /// a_nodes: #nodes nodal A_z [Wb/m].
 double arkkio_torque_static(const mesh::Mesh& m, const Eigen::VectorXd& a_nodes, double stack_length);
 
@@ -45,6 +46,9 @@ double virtual_work_torque(double coenergy_minus, double coenergy_plus, double a
 
 /// Co-energy [J] of a linear magnetostatic field driven by given currents: W' = W = 1/2 a^T K a
 /// = 1/2 f . a (K a = f), times the stack length. f, a: #dofs load [A] and solution [Wb/m].
-double linear_coenergy(const Eigen::VectorXd& load, const Eigen::VectorXd& solution, double stack_length);
+/// copies: mesh::Symmetry::copies of the model the unknowns belong to, so that the result is the
+/// whole machine's (1 for the full model).
+double linear_coenergy(const Eigen::VectorXd& load, const Eigen::VectorXd& solution, double stack_length,
+                       int copies = 1);
 
 }  // namespace tf::post

@@ -52,9 +52,10 @@ Eigen::SparseMatrix<double> assemble_stiffness(const mesh::Mesh& m, const DofMap
     for (int i = 0; i < 3; ++i) {
       const int di = d.dof_of_node[m.triangles(t, i)];
       if (di < 0) continue;
+      const double si = d.sign(m.triangles(t, i));
       for (int j = 0; j < 3; ++j) {
         const int dj = d.dof_of_node[m.triangles(t, j)];
-        if (dj >= 0) triplets.emplace_back(di, dj, k(i, j));
+        if (dj >= 0) triplets.emplace_back(di, dj, si * d.sign(m.triangles(t, j)) * k(i, j));
       }
     }
   }
@@ -72,7 +73,7 @@ Eigen::VectorXd region_current_load(const mesh::Mesh& m, const DofMap& d, const 
     const double share = jt * mesh::triangle_area(m, t) / 3.0;
     for (int i = 0; i < 3; ++i) {
       const int di = d.dof_of_node[m.triangles(t, i)];
-      if (di >= 0) f(di) += share;
+      if (di >= 0) f(di) += d.sign(m.triangles(t, i)) * share;
     }
   }
   return f;
@@ -86,6 +87,8 @@ Eigen::MatrixXd phase_loads(const mesh::Mesh& m, const DofMap& d, const mesh::Wi
     for (const mesh::CoilSide& s : w.sides) {
       if (s.phase != phase) continue;
       const int r = mesh::find_region(m, mesh::RegionKind::coil, s.slot, s.layer);
+      // A sector model holds the coil sides of its own slots; the others are their images.
+      if (r < 0 && m.symmetry.copies > 1) continue;
       if (r < 0)
         throw SolveError("the winding puts a coil side in slot " + std::to_string(s.slot) + " layer " +
                          std::to_string(s.layer) + ", which the mesh does not have");

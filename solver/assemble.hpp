@@ -22,6 +22,8 @@ Eigen::SparseMatrix<double> assemble_stiffness(const mesh::Mesh& m, const DofMap
 
 /// Load vectors, #dofs by #phases: column k is f for 1 A of terminal current in phase k alone.
 /// Coil sides carry J = turns * sign * i / (parallel paths * coil-side area) [A/m^2], uniform.
+/// A sector model (m.symmetry) takes the sides in its own slots; mesh::choose_sector has checked
+/// that the others are their (anti-)periodic images. Every assembly here honours d.sign_of_node.
 Eigen::MatrixXd phase_loads(const mesh::Mesh& m, const DofMap& d, const mesh::Winding& w);
 
 /// Load vector of a current density given per region [A/m^2], uniform in each region.

@@ -66,6 +66,12 @@ std::vector<bool> region_on_rotor(const mesh::Mesh& m) {
 }
 
 EddySystem assemble_eddy(const mesh::Mesh& m, const mesh::Winding& w, const Materials& materials) {
+  // The motion term sigma omega_r dA/dtheta couples a node to its neighbours along the arc, and
+  // phasors of a rotating field are not simply periodic across a cut (each harmonic turns the
+  // phase by its own angle), so a sector's cut conditions are not plain signs here.
+  if (m.symmetry.copies > 1)
+    throw SolveError("eddy-current studies need the full model: a sector's cut conditions are not a sign for "
+                     "time-harmonic fields of every space order");
   EddySystem s;
   s.dofs = number_dofs(m);
   s.stiffness = assemble_stiffness(m, s.dofs, region_reluctivity(m, materials));

@@ -18,10 +18,14 @@ Eigen::MatrixXd flux_linkage(const mesh::Mesh& m, const mesh::Winding& w, const 
   Eigen::MatrixXd psi = Eigen::MatrixXd::Zero(w.spec.n_phases, a.cols());
   for (const mesh::CoilSide& s : w.sides) {
     const int r = mesh::find_region(m, mesh::RegionKind::coil, s.slot, s.layer);
+    if (r < 0 && m.symmetry.copies > 1) continue;  // outside the sector: counted by its image below
     if (r < 0) throw SolveError("no coil region for slot " + std::to_string(s.slot) + " layer " + std::to_string(s.layer));
     psi.row(s.phase) += (s.direction * s.turns / area[r]) * integral.row(r);
   }
-  return psi * (stack_length / w.spec.parallel_paths);
+  // Sector model: a side k sectors on from one in the model carries direction s (-1)^k (anti-periodic)
+  // and sees the mean potential (-1)^k A-bar, so s N A-bar is the same for every image and the
+  // whole winding links `copies` times what the sector's sides do.
+  return psi * (m.symmetry.copies * stack_length / w.spec.parallel_paths);
 }
 
 Eigen::MatrixXd inductance_matrix(const mesh::Mesh& m, const mesh::Winding& w, const PhaseFields& f,

@@ -12,7 +12,8 @@ namespace tf::solver {
 
 /// Flux linkage [Wb] of each phase for nodal potentials a (#nodes by #columns):
 /// psi_k = (L_stack / a) Σ_sides s N Ā_side, with Ā the mean of A over the coil side; a is the
-/// number of parallel paths. Returns #phases by #columns.
+/// number of parallel paths. Returns #phases by #columns, for the whole machine: a sector model
+/// (m.symmetry) sums the sides in its slots and multiplies by its copies.
 Eigen::MatrixXd flux_linkage(const mesh::Mesh& m, const mesh::Winding& w, const Eigen::MatrixXd& a,
                              double stack_length);
 

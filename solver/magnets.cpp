@@ -33,7 +33,7 @@ Eigen::VectorXd magnet_load(const mesh::Mesh& m, const DofMap& d, const Material
     // int_e nu (B_rem,x dphi_i/dy - B_rem,y dphi_i/dx): the integrand is constant on the triangle.
     for (int i = 0; i < 3; ++i) {
       const int di = d.dof_of_node[m.triangles(t, i)];
-      if (di >= 0) f(di) += nu * 0.5 * twice_area * (b(0) * g(i, 1) - b(1) * g(i, 0));
+      if (di >= 0) f(di) += d.sign(m.triangles(t, i)) * nu * 0.5 * twice_area * (b(0) * g(i, 1) - b(1) * g(i, 0));
     }
   }
   return f;

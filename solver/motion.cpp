@@ -18,19 +18,12 @@ namespace {
 using Clock = std::chrono::steady_clock;
 double since(Clock::time_point t) { return std::chrono::duration<double>(Clock::now() - t).count(); }
 
-/// Sums nodal values (#nodes) into the unknowns they belong to; fixed nodes drop out.
-Eigen::VectorXd gather(const DofMap& d, const Eigen::VectorXd& nodal) {
-  Eigen::VectorXd f = Eigen::VectorXd::Zero(d.n_dofs);
-  for (std::size_t node = 0; node < d.dof_of_node.size(); ++node)
-    if (d.dof_of_node[node] >= 0) f(d.dof_of_node[node]) += nodal(static_cast<Eigen::Index>(node));
-  return f;
-}
-
 /// Identity numbering: one "unknown" per node, to build loads once in node space.
 DofMap node_space(const mesh::Mesh& m) {
   DofMap d;
   d.n_dofs = m.n_nodes();
   d.dof_of_node.resize(m.n_nodes());
+  d.sign_of_node.assign(m.n_nodes(), 1);
   for (int i = 0; i < m.n_nodes(); ++i) d.dof_of_node[i] = i;
   return d;
 }
@@ -60,7 +53,7 @@ std::vector<BhCurve> make_curves(const Materials& mat) {
 }  // namespace
 
 double sliding_pitch(const mesh::Mesh& m) {
-  return 2 * std::numbers::pi / static_cast<double>(m.sliding.stator_nodes.size());
+  return 2 * std::numbers::pi / static_cast<double>(m.sliding.stator_nodes.size() * m.symmetry.copies);
 }
 
 int rotor_shift(const mesh::Mesh& m, double angle) {

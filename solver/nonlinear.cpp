@@ -13,6 +13,7 @@ struct NonlinearSolver::Element {
   double area = 0.0;               ///< [m^2]
   int region = 0;
   Eigen::Vector3i dofs;            ///< -1 at fixed nodes
+  Eigen::Vector3d signs;           ///< A at vertex i = signs(i) * a(dofs(i)) (sector models: -1 across anti-periodic cuts)
   std::array<int, 9> value_index;  ///< where K(i, j) sits in matrix_.valuePtr(); -1 if fixed
 };
 
@@ -60,7 +61,10 @@ void NonlinearSolver::set_dofs(const DofMap& d) {
   triplets.reserve(9 * elements_.size());
   for (int t = 0; t < mesh_.n_triangles(); ++t) {
     Element& e = elements_[static_cast<std::size_t>(t)];
-    for (int i = 0; i < 3; ++i) e.dofs(i) = d.dof_of_node[static_cast<std::size_t>(mesh_.triangles(t, i))];
+    for (int i = 0; i < 3; ++i) {
+      e.dofs(i) = d.dof_of_node[static_cast<std::size_t>(mesh_.triangles(t, i))];
+      e.signs(i) = d.sign(mesh_.triangles(t, i));
+    }
     for (int i = 0; i < 3; ++i)
       for (int j = 0; j < 3; ++j)
         if (e.dofs(i) >= 0 && e.dofs(j) >= 0) triplets.emplace_back(e.dofs(i), e.dofs(j), 1.0);
@@ -98,9 +102,9 @@ void NonlinearSolver::set_dofs(const DofMap& d) {
 
 namespace {
 
-Eigen::Vector3d element_values(const Eigen::Vector3i& dofs, const Eigen::VectorXd& a) {
+Eigen::Vector3d element_values(const Eigen::Vector3i& dofs, const Eigen::Vector3d& signs, const Eigen::VectorXd& a) {
   Eigen::Vector3d ae;
-  for (int i = 0; i < 3; ++i) ae(i) = dofs(i) >= 0 ? a(dofs(i)) : 0.0;
+  for (int i = 0; i < 3; ++i) ae(i) = dofs(i) >= 0 ? signs(i) * a(dofs(i)) : 0.0;
   return ae;
 }
 
@@ -112,7 +116,7 @@ std::vector<double> NonlinearSolver::triangle_b_squared(const Eigen::VectorXd& a
   b2.reserve(elements_.size());
   // |B|^2 = |grad a|^2 = a_e^T S_e a_e / area on a first-order triangle.
   for (const Element& e : elements_) {
-    const Eigen::Vector3d ae = element_values(e.dofs, a);
+    const Eigen::Vector3d ae = element_values(e.dofs, e.signs, a);
     b2.push_back(std::max(0.0, ae.dot(e.unit_stiffness * ae) / e.area));
   }
   return b2;
@@ -121,11 +125,11 @@ std::vector<double> NonlinearSolver::triangle_b_squared(const Eigen::VectorXd& a
 Eigen::VectorXd NonlinearSolver::residual(const Eigen::VectorXd& a, const Eigen::VectorXd& f) const {
   Eigen::VectorXd r = -f;
   for (const Element& e : elements_) {
-    const Eigen::Vector3d ae = element_values(e.dofs, a);
+    const Eigen::Vector3d ae = element_values(e.dofs, e.signs, a);
     const Eigen::Vector3d sa = e.unit_stiffness * ae;
     const double nu = material_of(laws_[static_cast<std::size_t>(e.region)], std::max(0.0, ae.dot(sa) / e.area)).nu;
     for (int i = 0; i < 3; ++i)
-      if (e.dofs(i) >= 0) r(e.dofs(i)) += nu * sa(i);
+      if (e.dofs(i) >= 0) r(e.dofs(i)) += e.signs(i) * nu * sa(i);
   }
   return r;
 }
@@ -134,7 +138,7 @@ void NonlinearSolver::assemble(const Eigen::VectorXd& a, Matrix kind) {
   double* values = matrix_.valuePtr();
   std::fill(values, values + matrix_.nonZeros(), 0.0);
   for (const Element& e : elements_) {
-    const Eigen::Vector3d ae = element_values(e.dofs, a);
+    const Eigen::Vector3d ae = element_values(e.dofs, e.signs, a);
     const Eigen::Vector3d sa = e.unit_stiffness * ae;
     const Material mat = material_of(laws_[static_cast<std::size_t>(e.region)], std::max(0.0, ae.dot(sa) / e.area));
     Eigen::Matrix3d k = mat.nu * e.unit_stiffness;
@@ -142,7 +146,8 @@ void NonlinearSolver::assemble(const Eigen::VectorXd& a, Matrix kind) {
     // J_e = nu S_e + 2 (dnu/dB^2) (S_e a_e)(S_e a_e)^T / area, symmetric.
     if (kind == Matrix::jacobian) k += (2 * mat.dnu_db2 / e.area) * (sa * sa.transpose());
     for (int ij = 0; ij < 9; ++ij)
-      if (e.value_index[static_cast<std::size_t>(ij)] >= 0) values[e.value_index[static_cast<std::size_t>(ij)]] += k(ij / 3, ij % 3);
+      if (e.value_index[static_cast<std::size_t>(ij)] >= 0)
+        values[e.value_index[static_cast<std::size_t>(ij)]] += e.signs(ij / 3) * e.signs(ij % 3) * k(ij / 3, ij % 3);
   }
 }
 
@@ -232,7 +237,8 @@ Eigen::VectorXd NonlinearSolver::predict(const Eigen::VectorXd& f) {
     const double nu = material_of(laws_[static_cast<std::size_t>(e.region)], linear_ ? 0.0 : last_b_squared_[t]).nu;
     for (int ij = 0; ij < 9; ++ij)
       if (e.value_index[static_cast<std::size_t>(ij)] >= 0)
-        values[e.value_index[static_cast<std::size_t>(ij)]] += nu * e.unit_stiffness(ij / 3, ij % 3);
+        values[e.value_index[static_cast<std::size_t>(ij)]] +=
+            e.signs(ij / 3) * e.signs(ij % 3) * nu * e.unit_stiffness(ij / 3, ij % 3);
   }
   cholesky_.factorize(matrix_);
   factorized_.reset();
@@ -264,7 +270,7 @@ double NonlinearSolver::coenergy(const Eigen::VectorXd& a) const {
     const double density = law.curve ? law.curve->coenergy_density(std::sqrt(b2[t])) : 0.5 * law.nu * b2[t];
     sum += elements_[t].area * density;
   }
-  return sum;
+  return mesh_.symmetry.copies * sum;  // a sector model: the whole machine is `copies` images
 }
 
 }  // namespace tf::solver
@@ -279,11 +285,11 @@ double NonlinearSolver::energy(const Eigen::VectorXd& a) const {
     const double density = law.curve ? law.curve->energy_density(std::sqrt(b2[t])) : 0.5 * law.nu * b2[t];
     sum += elements_[t].area * density;
   }
-  return sum;
+  return mesh_.symmetry.copies * sum;  // a sector model: the whole machine is `copies` images
 }
 
 double NonlinearSolver::coenergy_stationary(const Eigen::VectorXd& f, const Eigen::VectorXd& a) const {
-  return f.dot(a) - energy(a);
+  return mesh_.symmetry.copies * f.dot(a) - energy(a);
 }
 
 }  // namespace tf::solver

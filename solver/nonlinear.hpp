@@ -5,6 +5,8 @@
 //
 // Shapes and units: a and f are #dofs vectors (A_z [Wb/m], loads [A]) in the numbering of the
 // DofMap given last; A = 0 at fixed nodes. B^2 [T^2], co-energy per metre of length [J/m].
+// Sector models (mesh::Symmetry): elements honour DofMap::sign_of_node, and energy, coenergy and
+// coenergy_stationary return the whole machine's value (copies times the sector's).
 
 #include <optional>
 #include <vector>
@@ -78,16 +80,18 @@ class NonlinearSolver {
   /// last solution (frozen permeability), e.g. to split flux linkage between sources.
   Eigen::MatrixXd solve_frozen(const Eigen::MatrixXd& rhs);
 
-  /// Energy per metre, sum over triangles of area * w(B) [J/m]; a linear region contributes nu B^2 / 2.
+  /// Energy per metre of the whole machine, sum over triangles of area * w(B) [J/m] (times the
+  /// copies of a sector model); a linear region contributes nu B^2 / 2.
   double energy(const Eigen::VectorXd& a) const;
 
-  /// Co-energy per metre [J/m] as minus the energy functional, f . a - energy(a): equal to
+  /// Co-energy per metre of the whole machine [J/m] as minus the energy functional, copies * f . a -
+  /// energy(a) (f, a of the model, copies = 1 for the full model): equal to
   /// coenergy(a) at the solution, and stationary there (the solution minimises the functional), so
   /// an iterate near it gives the co-energy with an error of the order of the squared field error.
   double coenergy_stationary(const Eigen::VectorXd& f, const Eigen::VectorXd& a) const;
 
-  /// Co-energy per metre, sum over triangles of area * (B H - w(B)) [J/m]; a linear region
-  /// contributes nu B^2 / 2 (equal to its energy).
+  /// Co-energy per metre of the whole machine, sum over triangles of area * (B H - w(B)) [J/m]
+  /// (times the copies of a sector model); a linear region contributes nu B^2 / 2 (equal to its energy).
   double coenergy(const Eigen::VectorXd& a) const;
 
  private:

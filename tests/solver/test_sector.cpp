@@ -1,0 +1,146 @@
+// A sector model against the full model with saturating iron: Newton's solution, the rotor-position
+// solver (MotionSolver, the one the application runs) and the whole-machine co-energy. The
+// reference is the full model plus the symmetry argument (tests/post/test_sector_field.cpp): the
+// sector's copies are the full mesh's triangles, so the discrete problems agree to the Newton
+// tolerance. The issue asks for 0.5 %; the checks ask for 1e-4 (Newton stops at a relative 1e-6
+// residual and update, not at rounding).
+
+#include <doctest/doctest.h>
+
+#include <algorithm>
+#include <cmath>
+
+#include "mesh/build.hpp"
+#include "mesh/symmetry.hpp"
+#include "solver/assemble.hpp"
+#include "solver/bh_curve.hpp"
+#include "solver/dofs.hpp"
+#include "solver/magnets.hpp"
+#include "solver/motion.hpp"
+#include "solver/nonlinear.hpp"
+#include "support/sector_compare.hpp"
+#include "support/sector_machine.hpp"
+
+using namespace tf;
+
+namespace {
+
+/// The analytic arctan law of ../shared/CHECKS.md §5 (J_s = 2 T, mu_ri = 5000), sampled.
+const solver::BhCurve& iron_curve() {
+  static const solver::BhCurve curve = solver::sampled_arctan_law(2.0, 5000, 60, 1e6);
+  return curve;
+}
+
+struct NonlinearField {
+  Eigen::VectorXd a;       ///< nodal [Wb/m]
+  double coenergy = 0.0;   ///< whole machine [J/m]
+  double peak_b_stator = 0.0;  ///< largest |B| in the stator iron [T]
+  int iterations = 0;
+};
+
+NonlinearField nonlinear_field(const mesh::Mesh& m, const mesh::Geometry& g, const mesh::Winding& w,
+                               const std::vector<double>& currents, int shift) {
+  const solver::Materials mat{};
+  const solver::DofMap d = solver::number_dofs(m, shift);
+  const std::vector<double> nu = solver::region_reluctivity(m, mat);
+  std::vector<solver::RegionLaw> laws;
+  for (std::size_t r = 0; r < m.regions.size(); ++r) {
+    const mesh::RegionKind k = m.regions[r].kind;
+    const bool iron = k == mesh::RegionKind::stator_iron || k == mesh::RegionKind::rotor_iron;
+    laws.push_back({nu[r], iron ? &iron_curve() : nullptr});
+  }
+  solver::NonlinearSolver newton(m, d, laws);
+  const Eigen::Map<const Eigen::VectorXd> i(currents.data(), 3);
+  const Eigen::VectorXd f =
+      solver::phase_loads(m, d, w) * i + solver::magnet_load(m, d, mat, solver::magnet_layout(g.rotor));
+  Eigen::VectorXd x;
+  const solver::NewtonReport report = newton.solve(f, x);
+  REQUIRE(report.converged);
+  NonlinearField out{solver::to_nodes(d, x).col(0), newton.coenergy(x), 0.0, report.iterations};
+  const std::vector<double> b2 = newton.triangle_b_squared(x);
+  for (int t = 0; t < m.n_triangles(); ++t)
+    if (m.regions[m.triangle_region(t)].kind == mesh::RegionKind::stator_iron)
+      out.peak_b_stator = std::max(out.peak_b_stator, std::sqrt(b2[static_cast<std::size_t>(t)]));
+  return out;
+}
+
+struct Models {
+  mesh::Geometry g = testing::magnet_machine();
+  mesh::Winding w = testing::magnet_machine_winding(g);
+  mesh::Mesh full = mesh::build(g, {2, false}, {});
+  mesh::Mesh sector = mesh::build(g, {2, false}, mesh::with_sector({}, *mesh::choose_sector(g, w)));
+};
+
+const Models& models() {
+  static const Models m;
+  return m;
+}
+
+void check_close(const testing::MachineQuantities& sector, const testing::MachineQuantities& full, double tolerance) {
+  const testing::Differences d = testing::differences(sector, full);
+  MESSAGE("full |c_2| " << std::abs(full.fundamental) << " T, torque " << full.torque << " N m/m, psi_A "
+                        << full.psi(0) << " Wb/m; sector relative differences: B_r " << d.br << ", c_2 "
+                        << d.fundamental << ", torque " << d.torque << ", psi " << d.psi);
+  CHECK(std::abs(full.torque) > 0.1);
+  CHECK(d.br < tolerance);
+  CHECK(d.fundamental < tolerance);
+  CHECK(d.torque < tolerance);
+  CHECK(d.psi < tolerance);
+}
+
+}  // namespace
+
+TEST_CASE("sector model, saturated iron (Newton): the full machine's field, torque, flux linkage and co-energy") {
+  const Models& s = models();
+  const int n_sector = static_cast<int>(s.sector.sliding.stator_nodes.size());
+  // 400 A peak in 10-conductor coil sides on top of the magnets drives the teeth well into saturation.
+  const std::vector<double> currents = testing::three_phase_currents(400.0, std::numbers::pi / 3);
+  for (int shift : {0, n_sector + 7}) {
+    const NonlinearField full = nonlinear_field(s.full, s.g, s.w, currents, shift);
+    const NonlinearField sector = nonlinear_field(s.sector, s.g, s.w, currents, shift);
+    MESSAGE("shift " << shift << ": peak stator |B| " << full.peak_b_stator << " T (sector " << sector.peak_b_stator
+                     << "), Newton iterations " << full.iterations << " / " << sector.iterations << ", co-energy "
+                     << full.coenergy << " / " << sector.coenergy << " J/m");
+    CHECK(full.peak_b_stator > 2.0);  // past the knee of the 2 T law: saturated
+    CHECK(sector.peak_b_stator == doctest::Approx(full.peak_b_stator).epsilon(1e-4).scale(0));
+    CHECK(sector.coenergy == doctest::Approx(full.coenergy).epsilon(1e-4).scale(0));
+    check_close(testing::machine_quantities(s.sector, s.w, sector.a, shift),
+                testing::machine_quantities(s.full, s.w, full.a, shift), 1e-4);
+  }
+}
+
+TEST_CASE("sector model in the rotor-position solver: torque, fundamental, flux linkage and virtual work") {
+  const Models& s = models();
+  const solver::BhCurve& c = iron_curve();
+  const solver::BhTable table{c.table_h(), c.table_b(), "arctan law of CHECKS.md §5, sampled", 1.0};
+  const solver::Materials mat{.stator_iron_bh = table, .rotor_iron_bh = table};
+  const solver::MagnetLayout layout = solver::magnet_layout(s.g.rotor);
+  solver::MotionSolver full(s.full, s.w, mat, layout);
+  solver::MotionSolver sector(s.sector, s.w, mat, layout);
+  CHECK(solver::sliding_pitch(s.sector) == doctest::Approx(solver::sliding_pitch(s.full)).epsilon(1e-12).scale(0));
+  const int n_sector = static_cast<int>(s.sector.sliding.stator_nodes.size());
+  // Rotor positions as a study steps them: warm starts across turns, one of them past a whole sector.
+  for (int shift : {0, 4, n_sector + 9}) {
+    const std::vector<double> currents = testing::three_phase_currents(300.0, 0.2 * shift);
+    const solver::PositionField f = full.solve(shift, currents);
+    const solver::PositionField p = sector.solve(shift, currents);
+    MESSAGE("shift " << shift << ": co-energy " << f.coenergy << " / " << p.coenergy << " J/m");
+    CHECK(p.coenergy == doctest::Approx(f.coenergy).epsilon(1e-4).scale(0));
+    check_close(testing::machine_quantities(s.sector, s.w, p.a, shift),
+                testing::machine_quantities(s.full, s.w, f.a, shift), 1e-4);
+    // Virtual work from the whole-machine co-energy matches between the models too.
+    const double pitch = solver::sliding_pitch(s.full);
+    const double t_full = (full.coenergy(shift + 1, currents) - full.coenergy(shift - 1, currents)) / (2 * pitch);
+    const double t_sector = (sector.coenergy(shift + 1, currents) - sector.coenergy(shift - 1, currents)) / (2 * pitch);
+    MESSAGE("virtual work " << t_full << " / " << t_sector << " N m/m");
+    CHECK(t_sector == doctest::Approx(t_full).epsilon(1e-2).scale(0));
+    // And it is the whole machine's torque, as Arkkio's is: the two routes agree (a common-practice
+    // cross-check of the two methods, cf. post/torque.hpp) only if both scale the sector alike.
+    CHECK(t_sector == doctest::Approx(post::arkkio_torque_static(s.sector, p.a, 1.0)).epsilon(1e-2).scale(0));
+  }
+  // The linearised unit fields (inductances) fold the same way.
+  const Eigen::MatrixXd psi_full = solver::flux_linkage(s.full, s.w, full.frozen_unit_fields(), 1.0);
+  const Eigen::MatrixXd psi_sector = solver::flux_linkage(s.sector, s.w, sector.frozen_unit_fields(), 1.0);
+  MESSAGE("frozen-permeability inductances [H/m]: full\n" << psi_full << "\nsector\n" << psi_sector);
+  CHECK((psi_sector - psi_full).cwiseAbs().maxCoeff() < 1e-4 * psi_full.cwiseAbs().maxCoeff());
+}
