@@ -30,6 +30,19 @@ json headline(const std::vector<SpeedResult>& rows) {
   return j;
 }
 
+json components(const std::vector<SlipComponentResult>& parts) {
+  json out = json::array();
+  const char* names[] = {"forward", "backward"};
+  for (std::size_t k = 0; k < parts.size(); ++k) {
+    const auto& c = parts[k];
+    out.push_back({{"wave", names[k % 2]}, {"slip", c.slip}, {"torque_N_m", c.torque},
+                   {"torque_lorentz_N_m", c.torque_lorentz}, {"rotor_loss_W", c.rotor_loss},
+                   {"gap_power_W", c.gap_power}, {"input_power_W", c.input_power},
+                   {"slip_times_gap_power_W", c.slip * c.gap_power}});
+  }
+  return out;
+}
+
 }  // namespace
 
 void write_torque_speed(const std::filesystem::path& path, const std::vector<SpeedResult>& rows, int) {
@@ -38,12 +51,17 @@ void write_torque_speed(const std::filesystem::path& path, const std::vector<Spe
          "input_power_W,mechanical_power_W";
     const std::size_t m = rows.front().emf_rms.size();
     for (std::size_t k = 0; k < m; ++k) o << ",emf_" << phase_name(static_cast<int>(k)) << "_V_rms";
+    const bool slip = !rows.front().components.empty();
+    if (slip)
+      for (const char* c : {"forward", "backward"})
+        o << fmt::format(",slip_{0},torque_{0}_N_m,rotor_loss_{0}_W", c);
     o << '\n';
     for (const auto& r : rows) {
       o << fmt::format("{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g},{:.10g}", r.rotor_speed,
                        rpm(r.rotor_speed), r.slip, r.torque, r.torque_lorentz, r.rotor_loss, r.rotor_loss_balance,
                        r.stator_loss, r.input_power, r.torque * r.rotor_speed);
       for (double e : r.emf_rms) o << fmt::format(",{:.10g}", e);
+      for (const auto& c : r.components) o << fmt::format(",{:.10g},{:.10g},{:.10g}", c.slip, c.torque, c.rotor_loss);
       o << '\n';
     }
   });
@@ -59,6 +77,7 @@ void write_eddy_summary(const std::filesystem::path& path, const EddyRecord& r) 
                       {"stator_loss_W", s.stator_loss}, {"input_power_W", s.input_power},
                       {"power_balance_relative", s.input_power != 0.0 ? balance / s.input_power : 0.0},
                       {"emf_V_rms", s.emf_rms}});
+    if (!s.components.empty()) speeds.back()["components"] = components(s.components);
   }
   json j;
   j["mesh"] = {{"nodes", r.mesh->n_nodes()}, {"triangles", r.mesh->n_triangles()}, {"regions", r.mesh->regions.size()}};
@@ -66,6 +85,21 @@ void write_eddy_summary(const std::filesystem::path& path, const EddyRecord& r) 
                         {"headline", headline(*r.rows)},
                         {"torque_method", "Arkkio: Maxwell stress averaged over the whole gap band; "
                                           "torque_lorentz from the induced currents, a cross-check"}};
+  j["eddy_currents"]["rotor_motion"] = r.method;
+  if (!(*r.rows).front().components.empty()) {
+    j["eddy_currents"]["slip_method"] = {
+        {"note", "torques and rotor losses of the two components add; their cross terms pulsate at twice the "
+                 "supply frequency and average to zero. Flux linkages add as phasors at the supply frequency."},
+        {"unmodelled_current_A", r.unmodelled_current},
+        {"unmodelled_current_note", "phase currents without a rotating fundamental (zero sequence), left out"}};
+    if (r.end_ring_factor)
+      j["eddy_currents"]["slip_method"]["end_ring_factor"] = {
+          {"value", *r.end_ring_factor},
+          {"note", "bar conductivity scaled by R_bar / (R_bar + R_ring / (2 sin^2(pi p / N))); exact for the "
+                   "fundamental only"}};
+    else
+      j["eddy_currents"]["slip_method"]["end_rings"] = "ideal (no resistance)";
+  }
   j["skin_depths"] = json::array();
   for (const auto& d : r.skin)
     j["skin_depths"].push_back({{"region", d.region}, {"skin_depth_m", d.depth}, {"at_frequency_Hz", d.frequency},
