@@ -125,6 +125,10 @@ std::string case_to_json(const Case& c) {
         {"harmonics", c.study.max_harmonic}}},
       {"mesh", {{"fineness", c.mesh.fineness}, {"elements_per_skin_depth", c.mesh.elements_per_skin_depth}}},
   };
+  if (c.end_rings)
+    j["rotor"]["end_rings"] = {{"area_m2", c.end_rings->area},
+                               {"mean_diameter_m", c.end_rings->mean_diameter},
+                               {"conductivity_S_per_m", c.end_rings->conductivity}};
   return j.dump();
 }
 

@@ -54,10 +54,10 @@ SlipComponentResult evaluate_component(const SlipInputs& in, double slip, int di
   SlipComponentResult r;
   r.slip = slip;
   r.torque = arkkio_torque(m, a, in.stack_length);
-  r.torque_lorentz = lorentz_torque(m, a, in.sigma, in.on_rotor, rotor_omega, 0.0, in.stack_length);
   for (double l : region_losses(m, a, in.sigma, in.on_rotor, rotor_omega, 0.0, in.stack_length)) r.rotor_loss += l;
   r.gap_power = r.torque * direction * omega / in.winding->spec.pole_pairs();
   r.input_power = input_power(omega, flux_linkages(m, *in.winding, a, in.stack_length), currents);
+  r.torque_energy = direction * in.winding->spec.pole_pairs() * r.input_power / omega;
   return r;
 }
 
@@ -78,7 +78,7 @@ SpeedResult evaluate_slip_speed(const SlipInputs& in, double rotor_speed, const 
   }
   for (const auto& x : r.components) {
     r.torque += x.torque;
-    r.torque_lorentz += x.torque_lorentz;
+    r.torque_lorentz += x.torque_energy;
     r.rotor_loss += x.rotor_loss;
   }
   r.flux_linkage = flux_linkages(m, *in.winding, a_forward + a_backward, in.stack_length);

@@ -48,7 +48,8 @@ SlipComponentResult evaluate_component(const SlipInputs& in, double slip, int di
 /// two components pulsate at twice the supply frequency and average to zero. Flux linkages add
 /// as phasors at the supply frequency (both components induce at omega in the stator). Input
 /// power from the summed EMFs and the modelled currents (forward + backward); rotor_loss_balance =
-/// input - T omega_r. No stator conductors: stator_loss = 0.
+/// input - T omega_r. No stator conductors: stator_loss = 0. torque_lorentz holds the sum of the
+/// energy torques (SlipComponentResult::torque_energy).
 SpeedResult evaluate_slip_speed(const SlipInputs& in, double rotor_speed, const RotatingComponents& c,
                                 const Eigen::VectorXcd& a_forward, const Eigen::VectorXcd& a_backward);
 

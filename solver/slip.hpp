@@ -7,7 +7,8 @@
 // Analysis of induction motors based on the numerical solution of the magnetic field and circuit
 // equations, Helsinki University of Technology, 1987; J. Pyrhönen, T. Jokinen, V. Hrabovcová,
 // Design of Rotating Electrical Machines, Wiley 2008, ch. 7, from memory). Stator conductors are
-// not in this model: laminated iron and stranded coils carry no eddy currents.
+// not in this model: laminated iron and stranded coils carry no eddy currents. Exact for the
+// fundamental wave: the stator's space harmonics are solved at the fundamental's slip too.
 //
 // Cage end rings. In 2D every bar runs the whole stack and is joined at both ends; with ideal
 // (zero-resistance) rings all bars are connected in parallel at each end, so each bar's net
