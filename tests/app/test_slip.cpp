@@ -15,6 +15,7 @@
 #include <nlohmann/json.hpp>
 
 #include "app/case_reader.hpp"
+#include "app/case_validation.hpp"
 #include "app/eddy_run.hpp"
 #include "app/run_case.hpp"
 #include "app/slip_study.hpp"
@@ -215,4 +216,17 @@ TEST_CASE("the eddy-current study of a cage runs by the slip-frequency method an
   // times over when fed with impressed currents (equivalent-circuit theory, from memory).
   CHECK(speeds[1]["torque_N_m"].get<double>() > 5 * speeds[0]["torque_N_m"].get<double>());
   CHECK(speeds[0]["torque_N_m"].get<double>() > 0.0);
+}
+
+TEST_CASE("an eddy-current study of a cage needs conducting bars and two or more phases") {
+  app::Case c = load("pump24_cage_eddy.toml");
+  REQUIRE_FALSE(app::case_problem(c));
+  app::Case one_phase = c;
+  one_phase.winding.n_phases = 1;
+  const auto p = app::case_problem(one_phase);
+  REQUIRE(p);
+  CHECK(p->key == "winding.phases");
+  c.materials.bar_sigma = 0.0;
+  REQUIRE(app::case_problem(c));
+  CHECK(app::case_problem(c)->key == "materials.rotor_bars.conductivity");
 }
