@@ -2,12 +2,14 @@
 // A case: everything one run needs, read and validated from a TOML case file.
 // Plain data in SI units; nothing after the reader touches the file again.
 
+#include <optional>
 #include <string>
 
 #include "mesh/geometry.hpp"
 #include "mesh/winding_spec.hpp"
 #include "post/study.hpp"
 #include "solver/materials.hpp"
+#include "solver/slip.hpp"
 #include "solver/supply.hpp"
 
 namespace tf::app {
@@ -22,6 +24,7 @@ struct Case {
   mesh::Geometry geometry;
   mesh::WindingSpec winding;
   solver::Materials materials;
+  std::optional<solver::EndRings> end_rings;  ///< a cage's end rings; none: ideal rings
   solver::Supply supply;
   Study study;
   mesh::MeshControls mesh;

@@ -162,6 +162,10 @@ std::string case_to_json(const Case& c) {
       {"mesh", {{"fineness", c.mesh.fineness}, {"elements_per_skin_depth", c.mesh.elements_per_skin_depth}}},
   };
   j["rotor"].update(rotor_parts_json(r));
+  if (c.end_rings)
+    j["rotor"]["end_rings"] = {{"area_m2", c.end_rings->area},
+                               {"mean_diameter_m", c.end_rings->mean_diameter},
+                               {"conductivity_S_per_m", c.end_rings->conductivity}};
   return j.dump();
 }
 

@@ -227,6 +227,7 @@ Case read_fields(const Document& doc) {
                        .real("stack_length", {.min = 0, .max = 10, .min_excluded = true, .unit = "m"});
   c.geometry.stator = read_stator(root);
   c.geometry.rotor = read_rotor(root);
+  c.end_rings = read_end_rings(root);
   c.materials = read_materials(root, c.geometry.rotor);
   c.winding = read_winding(root, c.geometry.stator);
   c.supply = read_supply(root, c.winding.n_phases);

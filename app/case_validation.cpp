@@ -403,6 +403,18 @@ std::optional<Problem> motion_problem(const Case& c) {
         return Problem{fmt::format("materials.{}.bh_curve", part),
                        "a B-H curve in an eddy-current study, which is linear (time-harmonic)",
                        "relative_permeability for eddy-current studies"};
+  // A cage is solved by the slip-frequency method (solver/slip.hpp): bars must conduct, and the
+  // currents must split into forward and backward sets, which one phase alone cannot.
+  if (s.kind == post::StudyKind::eddy_currents && c.geometry.rotor.kind == mesh::RotorKind::slotted) {
+    if (c.materials.bar_sigma <= 0.0)
+      return Problem{"materials.rotor_bars.conductivity", "bars that do not conduct in an eddy-current study of a cage",
+                     "a conductivity above 0 S/m"};
+    if (c.winding.n_phases < 2)
+      return Problem{"winding.phases",
+                     "one phase under a cage: its pulsating field cannot be split into forward and backward "
+                     "current sets",
+                     "two or more phases (feed one of them alone for single-phase operation)"};
+  }
   if (c.supply.kind == solver::SupplyKind::split_phase && (c.materials.stator_iron_bh || c.materials.rotor_iron_bh))
     return Problem{"supply.kind", "a split-phase circuit is solved with linear iron, but the case gives a B-H curve",
                    "relative_permeability for the iron, or another supply"};

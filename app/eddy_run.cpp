@@ -2,12 +2,15 @@
 
 #include <chrono>
 #include <cmath>
+#include <functional>
+#include <memory>
 #include <numbers>
 
 #include <fmt/format.h>
 
 #include "app/case_json.hpp"
 #include "app/progress.hpp"
+#include "app/slip_study.hpp"
 #include "mesh/build.hpp"
 #include "mesh/winding.hpp"
 #include "post/atomic_file.hpp"
@@ -34,16 +37,15 @@ void print_rows(std::ostream& out, const Case& c, const std::vector<post::SpeedR
   out << "  " << post::kSafetyCaution << "\n";
 }
 
-std::vector<std::string> write_fields(const fs::path& dir, const mesh::Mesh& m,
-                                      const std::vector<solver::EddySolution>& solutions, const post::SpeedInputs& in,
-                                      int n_files, Progress& progress) {
+/// field_NNNN.vtu for up to n_files speeds and field.pvd; write(k, path) writes speed k's file.
+template <class Write>
+std::vector<std::string> write_fields(const fs::path& dir, int n, int n_files, Progress& progress, Write write) {
   std::vector<std::string> files;
   std::vector<post::CollectionEntry> entries;
-  const int n = static_cast<int>(solutions.size());
   for (int k : post::field_file_steps(n, std::min(n, n_files))) {
     progress.count("writing field files", static_cast<int>(files.size()), n_files);
     const std::string name = fmt::format("field_{:04d}.vtu", k);
-    post::write_eddy_vtu(dir / name, m, solutions[k].potential, in, solutions[k].rotor_speed);
+    write(k, dir / name);
     entries.push_back({static_cast<double>(k), name});  // a series over speeds, indexed by speed number
     files.push_back(name);
   }
@@ -61,13 +63,60 @@ double rotor_skin_depth(const Case& c) {
   for (double w : c.study.rotor_speeds) slip = std::max(slip, std::abs(omega - c.winding.pole_pairs() * w));
   const auto& m = c.materials;
   double depth = 0.0;
+  const double bars = c.geometry.rotor.kind == mesh::RotorKind::slotted ? m.bar_sigma : 0.0;
   for (const auto& [mu_r, sigma] : {std::pair{m.rotor_iron_mu_r, m.rotor_iron_sigma}, std::pair{m.shaft_mu_r, m.shaft_sigma},
-                                    std::pair{m.sleeve_mu_r, m.sleeve_sigma}})
+                                    std::pair{m.sleeve_mu_r, m.sleeve_sigma}, std::pair{1.0, bars}})
     if (sigma > 0.0 && slip > 0.0) {
       const double d = std::sqrt(2.0 / (slip * mu0 * mu_r * sigma));
       depth = depth > 0.0 ? std::min(depth, d) : d;
     }
   return depth;
+}
+
+/// What either method hands to the writers.
+struct Solved {
+  std::vector<post::SpeedResult> rows;
+  std::vector<double> sigma;   ///< per region, as solved [S/m]
+  std::vector<bool> on_rotor;  ///< per region
+  std::function<void(int, const fs::path&)> write_field;  ///< speed k's VTU file
+};
+
+/// The motion term sigma omega_r dA/dtheta: exact for rotationally invariant rotors.
+Solved solve_by_motion(const Case& c, const mesh::Mesh& m, const mesh::Winding& w, post::EddyRecord& record) {
+  auto t = Clock::now();
+  const solver::EddySystem system = solver::assemble_eddy(m, w, c.materials);
+  record.stats.assemble_seconds = since(t);
+  const auto currents = solver::supply_phasors(c.supply, c.winding.n_phases);
+  const auto solutions = solver::solve_eddy(m, system, currents, c.supply.frequency, c.study.rotor_speeds, record.stats);
+  const post::SpeedInputs in{&m, &w, solver::region_conductivity(m, c.materials), solver::region_on_rotor(m),
+                             currents, c.supply.frequency, c.stack_length};
+  Solved out{{}, in.sigma, in.on_rotor, {}};
+  for (const auto& x : solutions) out.rows.push_back(post::evaluate_speed(in, x.rotor_speed, x.potential));
+  out.write_field = [&m, in, solutions](int k, const fs::path& path) {
+    post::write_eddy_vtu(path, m, solutions[k].potential, in, solutions[k].rotor_speed);
+  };
+  return out;
+}
+
+/// The slip-frequency method: rotors with bars. The field files show the forward component in
+/// the rotor frame (J = -j s omega sigma A).
+Solved solve_by_slip(const Case& c, const mesh::Mesh& m, const mesh::Winding& w, post::EddyRecord& record) {
+  auto t = Clock::now();
+  auto study = std::make_shared<SlipStudy>(solve_slip_study(c, m, w, record.stats));
+  record.stats.assemble_seconds = since(t) - record.stats.analyse_seconds - record.stats.factorize_seconds -
+                                  record.stats.solve_seconds;
+  record.method = "slip-frequency method, forward and backward components superposed";
+  if (c.end_rings) record.end_ring_factor = study->end_ring_factor;
+  double rest = 0.0;
+  for (const auto& i : study->components.rest) rest = std::max(rest, std::abs(i));
+  record.unmodelled_current = rest;
+  Solved out{study->rows, solver::slip_conductivity(m, study->materials), solver::slip_on_rotor(m), {}};
+  out.write_field = [&m, &w, &c, study, sigma = out.sigma, on = out.on_rotor](int k, const fs::path& path) {
+    const double s = study->rows[k].slip;
+    const post::SpeedInputs in{&m, &w, sigma, on, study->components.forward, s * c.supply.frequency, c.stack_length};
+    post::write_eddy_vtu(path, m, study->forward[k], in, 0.0);
+  };
+  return out;
 }
 
 }  // namespace
@@ -82,25 +131,21 @@ void run_eddy_case(const Case& given, const RunOptions& options, std::ostream& o
   const auto [m, w] = mesh_and_wind(c);
   record.seconds.push_back({"mesh", since(t)});
 
-  t = Clock::now();
-  const solver::EddySystem system = solver::assemble_eddy(m, w, c.materials);
-  record.stats.assemble_seconds = since(t);
-  const auto currents = solver::supply_phasors(c.supply, c.winding.n_phases);
   progress.stage(fmt::format("solving {} rotor speeds", c.study.rotor_speeds.size()));
-  const auto solutions = solver::solve_eddy(m, system, currents, c.supply.frequency, c.study.rotor_speeds, record.stats);
+  // A rotor with bars is not rotationally invariant: the motion term would be wrong there.
+  t = Clock::now();
+  const bool cage = c.geometry.rotor.kind == mesh::RotorKind::slotted;
+  const Solved solved = cage ? solve_by_slip(c, m, w, record) : solve_by_motion(c, m, w, record);
+  const auto& rows = solved.rows;
   record.seconds.push_back({"assemble", record.stats.assemble_seconds});
   record.seconds.push_back({"analyse", record.stats.analyse_seconds});
   record.seconds.push_back({"factorize", record.stats.factorize_seconds});
   record.seconds.push_back({"solve", record.stats.solve_seconds});
 
   t = Clock::now();
-  const post::SpeedInputs in{&m, &w, solver::region_conductivity(m, c.materials), solver::region_on_rotor(m),
-                             currents, c.supply.frequency, c.stack_length};
-  std::vector<post::SpeedResult> rows;
-  for (const auto& s : solutions) rows.push_back(post::evaluate_speed(in, s.rotor_speed, s.potential));
   std::vector<double> mu_r;
   for (double nu : solver::region_reluctivity(m, c.materials)) mu_r.push_back(1.0 / (4e-7 * std::numbers::pi * nu));
-  record.skin = post::skin_depths(m, in.sigma, mu_r, in.on_rotor, c.supply.frequency, c.study.rotor_speeds,
+  record.skin = post::skin_depths(m, solved.sigma, mu_r, solved.on_rotor, c.supply.frequency, c.study.rotor_speeds,
                                   w.spec.pole_pairs());
   record.seconds.push_back({"post", since(t)});
 
@@ -110,7 +155,7 @@ void run_eddy_case(const Case& given, const RunOptions& options, std::ostream& o
   post::write_torque_speed(dir / "torque_speed.csv", rows, w.spec.pole_pairs());
   record.files = {"torque_speed.csv"};
   const int n_files = options.all_field_files ? static_cast<int>(rows.size()) : c.study.n_field_files;
-  const auto vtu = write_fields(dir, m, solutions, in, n_files, progress);
+  const auto vtu = write_fields(dir, static_cast<int>(rows.size()), n_files, progress, solved.write_field);
   record.files.insert(record.files.end(), vtu.begin(), vtu.end());
   record.seconds.push_back({"write", since(t)});
   progress.finish();
@@ -126,6 +171,7 @@ void run_eddy_case(const Case& given, const RunOptions& options, std::ostream& o
       out << fmt::format("warning: {}: skin depth {:.3g} mm at {:.4g} Hz, but elements up to {:.3g} mm; fewer than "
                          "three per skin depth: raise [mesh] fineness or set [mesh] elements_per_skin_depth\n",
                          d.region, 1e3 * d.depth, d.frequency, 1e3 * d.element_size);
+  if (cage) out << fmt::format("  {}\n", record.method);
   print_rows(out, c, rows, dir);
 }
 

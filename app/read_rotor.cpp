@@ -1,6 +1,7 @@
 #include "app/read_rotor.hpp"
 
 #include <numbers>
+#include <optional>
 
 namespace tf::app {
 namespace {
@@ -39,7 +40,7 @@ mesh::RotorSlots read_bars(const Fields& rotor) {
 }  // namespace
 
 mesh::RotorGeometry read_rotor(const Fields& root) {
-  const Fields f = root.table("rotor", {"kind", "outer_radius", "shaft_radius", "sleeve_thickness", "magnets", "bars"});
+  const Fields f = root.table("rotor", {"kind", "outer_radius", "shaft_radius", "sleeve_thickness", "magnets", "bars", "end_rings"});
   mesh::RotorGeometry r;
   constexpr mesh::RotorKind kinds[] = {mesh::RotorKind::iron, mesh::RotorKind::surface_magnet,
                                        mesh::RotorKind::slotted, mesh::RotorKind::none};
@@ -63,7 +64,21 @@ mesh::RotorGeometry read_rotor(const Fields& root) {
     r.slots = read_bars(f);
   else
     f.reject("bars", "bars belong to a rotor of kind \"slotted\"", "no such table, or kind = \"slotted\"");
+  if (r.kind != mesh::RotorKind::slotted)
+    f.reject("end_rings", "end rings belong to a rotor of kind \"slotted\"", "no such table, or kind = \"slotted\"");
   return r;
+}
+
+std::optional<solver::EndRings> read_end_rings(const Fields& root) {
+  const Fields rotor = root.table("rotor", {"kind", "outer_radius", "shaft_radius", "sleeve_thickness", "magnets",
+                                            "bars", "end_rings"});
+  const auto f = rotor.optional_table("end_rings", {"area", "mean_diameter", "conductivity"});
+  if (!f) return std::nullopt;
+  solver::EndRings e;
+  e.area = f->real("area", {.min = 0, .max = 1, .min_excluded = true, .unit = "m^2"});
+  e.mean_diameter = f->real("mean_diameter", {.min = 0, .max = 10, .min_excluded = true, .unit = "m"});
+  e.conductivity = f->real("conductivity", {.min = 0, .max = 1e9, .min_excluded = true, .unit = "S/m"});
+  return e;
 }
 
 }  // namespace tf::app

@@ -2,6 +2,7 @@
 // Files of an eddy-current study: torque_speed.csv, a VTU file per speed, summary.json.
 
 #include <filesystem>
+#include <optional>
 #include <string>
 #include <utility>
 #include <vector>
@@ -15,7 +16,8 @@
 
 namespace tf::post {
 
-/// torque_speed.csv: one row per rotor speed.
+/// torque_speed.csv: one row per rotor speed; with the slip-frequency method also the slip,
+/// torque and rotor loss of the forward and backward components.
 void write_torque_speed(const std::filesystem::path& path, const std::vector<SpeedResult>& rows, int pole_pairs);
 
 /// One speed's field: A (real and imaginary parts of the peak phasor) at nodes; per triangle the
@@ -32,6 +34,10 @@ struct EddyRecord {
   solver::EddyStats stats;
   std::vector<std::pair<std::string, double>> seconds;
   std::vector<std::string> files;
+  /// How rotor motion entered the model.
+  std::string method = "motion term sigma omega_r dA/dtheta (exact for rotationally invariant rotors)";
+  std::optional<double> end_ring_factor;  ///< slip method with end rings given: the bar-conductivity factor
+  double unmodelled_current = 0.0;  ///< slip method: largest phase current [A] left out (no rotating fundamental)
 };
 void write_eddy_summary(const std::filesystem::path& path, const EddyRecord& r);
 

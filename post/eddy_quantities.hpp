@@ -38,12 +38,26 @@ std::vector<std::complex<double>> flux_linkages(const mesh::Mesh& m, const mesh:
 
 namespace tf::post {
 
+/// One rotating component of the slip-frequency method (post/slip_quantities.hpp).
+struct SlipComponentResult {
+  double slip = 0.0;           ///< s for the forward component, 2 - s for the backward one
+  double torque = 0.0;         ///< Arkkio [N m]
+  /// [N m]: +-p input_power / omega, the torque of this wave's air-gap power as the energy
+  /// balance gives it (rotor loss / slip = input power, exact for the discrete equations). The
+  /// Lorentz force on the bar currents is no cross-check in a cage: most of the torque acts on
+  /// the teeth, where the flux passes the bars.
+  double torque_energy = 0.0;
+  double rotor_loss = 0.0;     ///< [W], from J = -j s omega sigma A in the rotor frame
+  double gap_power = 0.0;      ///< T omega_sync [W], omega_sync = +omega/p (forward), -omega/p (backward)
+  double input_power = 0.0;    ///< 1/2 Re sum_k j omega psi_k conj(I_k) of this component alone [W]
+};
+
 /// Everything reported for one rotor speed.
 struct SpeedResult {
   double rotor_speed = 0.0;     ///< [rad/s]
   double slip = 0.0;            ///< 1 - p omega_r / omega
   double torque = 0.0;          ///< Arkkio [N m]
-  double torque_lorentz = 0.0;  ///< cross-check [N m]
+  double torque_lorentz = 0.0;  ///< cross-check [N m]; slip method: sum of SlipComponentResult::torque_energy
   double rotor_loss = 0.0;      ///< [W], all rotor conductors, integrated from the induced currents
   /// [W]: input power less stator loss and mechanical power by Arkkio's torque. Input power and
   /// Arkkio's torque converge faster than local current densities, so near synchronism this is
@@ -54,6 +68,8 @@ struct SpeedResult {
   double input_power = 0.0;     ///< 1/2 Re sum_k V_k conj(I_k), V_k = j omega psi_k [W]
   std::vector<std::complex<double>> flux_linkage;  ///< per phase [Wb], peak phasors
   std::vector<double> emf_rms;                     ///< per phase [V]
+  /// Slip-frequency method only: forward then backward component; empty with the motion term.
+  std::vector<SlipComponentResult> components;
 };
 
 struct SpeedInputs {

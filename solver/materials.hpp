@@ -46,8 +46,8 @@ struct Materials {
   // Invented defaults of the order of sintered rare-earth magnets.
   double magnet_remanence = 1.2;  ///< B_r [T]
   double magnet_mu_rec = 1.05;    ///< recoil relative permeability [-]
-  // Rotor bars (squirrel cage): non-magnetic. The conductivity is kept for eddy-current studies of a
-  // cage, which need the slip-frequency method (not built yet); until then bars carry no current.
+  // Rotor bars (squirrel cage): non-magnetic. The conductivity serves eddy-current studies of a
+  // cage by the slip-frequency method (solver/slip.hpp); magnetostatic studies leave the bars dead.
   // Invented default, of the order of cast aluminium.
   double bar_sigma = 3.0e7;  ///< [S/m]
 };

@@ -63,7 +63,8 @@ class MotionSolver {
 
   /// Flux linkages of 1 A in each phase through the linearised field at the last solution:
   /// nodal A, #nodes by #phases, with the frozen (secant) permeability, or the incremental
-  /// (differential) one of the Jacobian. Equal for linear materials.
+  /// (differential) one of the Jacobian. Equal for linear materials. Call them after solve() and
+  /// before coenergy() (which turns the rotor without solving); otherwise std::logic_error.
   Eigen::MatrixXd frozen_unit_fields();
   Eigen::MatrixXd incremental_unit_fields();
 

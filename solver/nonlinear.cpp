@@ -1,5 +1,7 @@
 #include "solver/nonlinear.hpp"
 
+#include <stdexcept>
+
 #include <algorithm>
 #include <cassert>
 #include <cmath>
@@ -246,6 +248,8 @@ Eigen::VectorXd NonlinearSolver::predict(const Eigen::VectorXd& f) {
 }
 
 Eigen::MatrixXd NonlinearSolver::solve_with(Matrix kind, const Eigen::MatrixXd& rhs) {
+  if (last_solution_.size() != n_dofs_)
+    throw std::logic_error("NonlinearSolver: a linearised solve needs a solution in the current numbering; solve() first");
   assert(last_solution_.size() == n_dofs_ && "solve() first");
   assert(rhs.rows() == n_dofs_);
   // For a linear problem the Jacobian and the secant matrix are the same matrix.

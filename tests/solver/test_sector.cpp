@@ -139,6 +139,9 @@ TEST_CASE("sector model in the rotor-position solver: torque, fundamental, flux 
     CHECK(t_sector == doctest::Approx(post::arkkio_torque_static(s.sector, p.a, 1.0)).epsilon(1e-2).scale(0));
   }
   // The linearised unit fields (inductances) fold the same way.
+  // The linearised fields belong to the last solve (virtual work's neighbours are not solves).
+  full.solve(0, testing::three_phase_currents(300.0, 0.0));
+  sector.solve(0, testing::three_phase_currents(300.0, 0.0));
   const Eigen::MatrixXd psi_full = solver::flux_linkage(s.full, s.w, full.frozen_unit_fields(), 1.0);
   const Eigen::MatrixXd psi_sector = solver::flux_linkage(s.sector, s.w, sector.frozen_unit_fields(), 1.0);
   MESSAGE("frozen-permeability inductances [H/m]: full\n" << psi_full << "\nsector\n" << psi_sector);
