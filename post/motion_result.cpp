@@ -17,9 +17,9 @@ TorqueStats torque_stats(const std::vector<double>& torque) {
   s.max = *hi;
   s.mean = std::accumulate(torque.begin(), torque.end(), 0.0) / static_cast<double>(torque.size());
   s.peak_to_peak = s.max - s.min;
-  s.ripple = std::abs(s.mean) > 1e-12 * std::max(std::abs(s.max), std::abs(s.min))
-                 ? s.peak_to_peak / std::abs(s.mean)
-                 : std::numeric_limits<double>::quiet_NaN();
+  // Ripple relative to a mean that is (next to) zero, as in a cogging study, says nothing.
+  s.ripple = std::abs(s.mean) > 1e-3 * s.peak_to_peak ? s.peak_to_peak / std::abs(s.mean)
+                                                      : std::numeric_limits<double>::quiet_NaN();
   return s;
 }
 

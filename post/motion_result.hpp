@@ -29,7 +29,7 @@ struct PositionStep {
 struct TorqueStats {
   double mean = 0.0, min = 0.0, max = 0.0;
   double peak_to_peak = 0.0;
-  double ripple = 0.0;  ///< peak_to_peak / |mean| (NaN when the mean is zero, e.g. cogging)
+  double ripple = 0.0;  ///< peak_to_peak / |mean| (NaN when |mean| < 0.1 % of peak_to_peak, e.g. cogging)
 };
 TorqueStats torque_stats(const std::vector<double>& torque);
 
