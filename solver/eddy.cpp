@@ -1,5 +1,7 @@
 #include "solver/eddy.hpp"
 
+#include "solver/complex_sequence.hpp"
+
 #include <chrono>
 #include <numbers>
 
@@ -12,8 +14,6 @@
 namespace tf::solver {
 namespace {
 
-using Clock = std::chrono::steady_clock;
-double since(Clock::time_point t) { return std::chrono::duration<double>(Clock::now() - t).count(); }
 
 TriangleXY vertices(const mesh::Mesh& m, int t) {
   TriangleXY xy;
@@ -113,29 +113,12 @@ std::vector<EddySolution> solve_eddy(const mesh::Mesh& m, const EddySystem& s,
   // The same structure at every speed (M and C always included), so one symbolic analysis serves all.
   const Matrix base = s.stiffness.cast<Complex>() + Complex(0.0, omega) * s.mass.cast<Complex>();
   const Matrix motion = s.motion.cast<Complex>();
-  Eigen::UmfPackLU<Matrix> lu;
+  ComplexSequence lu("the time-harmonic system");
   std::vector<EddySolution> out;
   stats.n_dofs = s.dofs.n_dofs;
-  for (std::size_t k = 0; k < rotor_speeds.size(); ++k) {
-    const Matrix system = base + Complex(rotor_speeds[k], 0.0) * motion;
-    auto t = Clock::now();
-    if (k == 0) {
-      lu.analyzePattern(system);
-      stats.analyse_seconds += since(t);
-      t = Clock::now();
-    }
-    lu.factorize(system);
-    stats.factorize_seconds += since(t);
-    if (lu.info() != Eigen::Success)
-      throw SolveError("the time-harmonic system could not be factorized (UMFPACK); usual causes: a region with "
-                       "no fixed potential, or a zero permeability");
-    t = Clock::now();
-    const Eigen::VectorXcd x = lu.solve(load);
-    stats.solve_seconds += since(t);
-    Eigen::VectorXcd a = Eigen::VectorXcd::Zero(m.n_nodes());
-    for (int node = 0; node < m.n_nodes(); ++node)
-      if (s.dofs.dof_of_node[node] >= 0) a(node) = x(s.dofs.dof_of_node[node]);
-    out.push_back({rotor_speeds[k], a});
+  for (double speed : rotor_speeds) {
+    const Matrix system = base + Complex(speed, 0.0) * motion;
+    out.push_back({speed, complex_to_nodes(s.dofs, lu.solve(system, load, stats), m.n_nodes())});
   }
   return out;
 }

@@ -266,27 +266,20 @@ Eigen::MatrixXd NonlinearSolver::solve_incremental(const Eigen::MatrixXd& rhs) {
 
 Eigen::MatrixXd NonlinearSolver::solve_frozen(const Eigen::MatrixXd& rhs) { return solve_with(Matrix::secant, rhs); }
 
-double NonlinearSolver::coenergy(const Eigen::VectorXd& a) const {
+double NonlinearSolver::coenergy(const Eigen::VectorXd& a) const { return integrate(a, Density::coenergy); }
+
+double NonlinearSolver::energy(const Eigen::VectorXd& a) const { return integrate(a, Density::energy); }
+
+double NonlinearSolver::integrate(const Eigen::VectorXd& a, Density kind) const {
   const std::vector<double> b2 = triangle_b_squared(a);
   double sum = 0.0;
   for (std::size_t t = 0; t < elements_.size(); ++t) {
     const RegionLaw& law = laws_[static_cast<std::size_t>(elements_[t].region)];
-    const double density = law.curve ? law.curve->coenergy_density(std::sqrt(b2[t])) : 0.5 * law.nu * b2[t];
-    sum += elements_[t].area * density;
-  }
-  return mesh_.symmetry.copies * sum;  // a sector model: the whole machine is `copies` images
-}
-
-}  // namespace tf::solver
-
-namespace tf::solver {
-
-double NonlinearSolver::energy(const Eigen::VectorXd& a) const {
-  const std::vector<double> b2 = triangle_b_squared(a);
-  double sum = 0.0;
-  for (std::size_t t = 0; t < elements_.size(); ++t) {
-    const RegionLaw& law = laws_[static_cast<std::size_t>(elements_[t].region)];
-    const double density = law.curve ? law.curve->energy_density(std::sqrt(b2[t])) : 0.5 * law.nu * b2[t];
+    const double b = std::sqrt(b2[t]);
+    // A linear region's energy and co-energy are equal: nu B^2 / 2.
+    const double density = !law.curve                   ? 0.5 * law.nu * b2[t]
+                           : kind == Density::coenergy ? law.curve->coenergy_density(b)
+                                                       : law.curve->energy_density(b);
     sum += elements_[t].area * density;
   }
   return mesh_.symmetry.copies * sum;  // a sector model: the whole machine is `copies` images

@@ -96,6 +96,9 @@ class NonlinearSolver {
 
  private:
   enum class Matrix { jacobian, secant };
+  enum class Density { energy, coenergy };
+  /// Sum over triangles of area times the energy or co-energy density, for the whole machine.
+  double integrate(const Eigen::VectorXd& a, Density kind) const;
   Eigen::VectorXd residual(const Eigen::VectorXd& a, const Eigen::VectorXd& f) const;
   void assemble(const Eigen::VectorXd& a, Matrix kind);
   double line_search(const Eigen::VectorXd& a, const Eigen::VectorXd& f, const Eigen::VectorXd& step,

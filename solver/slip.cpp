@@ -1,5 +1,7 @@
 #include "solver/slip.hpp"
 
+#include "solver/complex_sequence.hpp"
+
 #include <chrono>
 #include <cmath>
 #include <numbers>
@@ -13,8 +15,6 @@
 namespace tf::solver {
 namespace {
 
-using Clock = std::chrono::steady_clock;
-double since(Clock::time_point t) { return std::chrono::duration<double>(Clock::now() - t).count(); }
 
 /// Element mass int phi_i phi_j = area/12 (1 + delta_ij) of a first-order triangle.
 Eigen::Matrix3d p1_mass(const mesh::Mesh& m, int t) {
@@ -88,33 +88,16 @@ std::vector<Eigen::VectorXcd> solve_slip(const mesh::Mesh& m, const SlipSystem& 
   using Complex = std::complex<double>;
   using Matrix = Eigen::SparseMatrix<Complex>;
   const Matrix stiffness = s.stiffness.cast<Complex>(), mass = s.rotor_mass.cast<Complex>();
-  Eigen::UmfPackLU<Matrix> lu;
+  ComplexSequence lu("the slip-frequency system");
   std::vector<Eigen::VectorXcd> out;
   stats.n_dofs = s.dofs.n_dofs;
-  for (std::size_t k = 0; k < problems.size(); ++k) {
-    const auto& currents = problems[k].currents;
+  for (const SlipProblem& problem : problems) {
     // M_rotor always added (also at zero slip), so every problem has the same pattern.
-    const Matrix system = stiffness + Complex(0.0, problems[k].rotor_omega) * mass;
-    auto t = Clock::now();
-    if (k == 0) {
-      lu.analyzePattern(system);
-      stats.analyse_seconds += since(t);
-      t = Clock::now();
-    }
-    lu.factorize(system);
-    stats.factorize_seconds += since(t);
-    if (lu.info() != Eigen::Success)
-      throw SolveError("the slip-frequency system could not be factorized (UMFPACK); usual causes: a region with "
-                       "no fixed potential, or a zero permeability");
-    t = Clock::now();
-    const Eigen::VectorXcd load =
-        s.unit_loads.cast<Complex>() * Eigen::Map<const Eigen::VectorXcd>(currents.data(), Eigen::Index(currents.size()));
-    const Eigen::VectorXcd x = lu.solve(load);
-    stats.solve_seconds += since(t);
-    Eigen::VectorXcd a = Eigen::VectorXcd::Zero(m.n_nodes());
-    for (int node = 0; node < m.n_nodes(); ++node)
-      if (s.dofs.dof_of_node[node] >= 0) a(node) = x(s.dofs.dof_of_node[node]);
-    out.push_back(a);
+    const Matrix system = stiffness + Complex(0.0, problem.rotor_omega) * mass;
+    const Eigen::VectorXcd load = s.unit_loads.cast<Complex>() *
+                                  Eigen::Map<const Eigen::VectorXcd>(problem.currents.data(),
+                                                                     Eigen::Index(problem.currents.size()));
+    out.push_back(complex_to_nodes(s.dofs, lu.solve(system, load, stats), m.n_nodes()));
   }
   return out;
 }

@@ -89,10 +89,7 @@ TEST_CASE("choose_sector: the rotor must repeat, and magnets with the winding's 
 TEST_CASE("a sector mesh: a quarter of the 24-slot magnet machine") {
   const mesh::Geometry g = testing::magnet_machine();
   const mesh::Winding w = testing::magnet_machine_winding(g);
-  const auto choice = mesh::choose_sector(g, w);
-  REQUIRE(choice.has_value());
-  const mesh::Mesh full = mesh::build(g, {2, false}, {});
-  const mesh::Mesh sector = mesh::build(g, {2, false}, mesh::with_sector({}, *choice));
+  const auto [full, sector] = testing::full_and_sector(g, w);
   CHECK(sector.symmetry.copies == 4);
   CHECK(sector.symmetry.anti_periodic);
   CHECK(full.symmetry.copies == 1);

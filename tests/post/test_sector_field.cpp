@@ -41,10 +41,7 @@ Eigen::VectorXd linear_field(const mesh::Mesh& m, const mesh::Geometry& g, const
 TEST_CASE("sector model, linear iron: gap field, torque and flux linkage of the full machine") {
   const mesh::Geometry g = testing::magnet_machine();
   const mesh::Winding w = testing::magnet_machine_winding(g);
-  const auto choice = mesh::choose_sector(g, w);
-  REQUIRE(choice.has_value());
-  const mesh::Mesh full = mesh::build(g, {2, false}, {});
-  const mesh::Mesh sector = mesh::build(g, {2, false}, mesh::with_sector({}, *choice));
+  const auto [full, sector] = testing::full_and_sector(g, w);
   const int n_sector = static_cast<int>(sector.sliding.stator_nodes.size());
   // Currents at 30° electrical, 20 A peak: torque from both magnets and currents.
   const std::vector<double> currents = testing::three_phase_currents(20.0, std::numbers::pi / 6);
@@ -73,8 +70,7 @@ TEST_CASE("gap operators unfold a sector: harmonics of a known potential on the 
   // model (every sign +1) must give the same.
   const mesh::Geometry g = testing::magnet_machine();
   const mesh::Winding w = testing::magnet_machine_winding(g);
-  const mesh::Mesh full = mesh::build(g, {2, false}, {});
-  const mesh::Mesh sector = mesh::build(g, {2, false}, mesh::with_sector({}, *mesh::choose_sector(g, w)));
+  const auto [full, sector] = testing::full_and_sector(g, w);
   for (const mesh::Mesh* m : {&full, &sector}) {
     const solver::DofMap d = solver::number_dofs(*m, 3);
     int negative = 0;

@@ -67,8 +67,9 @@ NonlinearField nonlinear_field(const mesh::Mesh& m, const mesh::Geometry& g, con
 struct Models {
   mesh::Geometry g = testing::magnet_machine();
   mesh::Winding w = testing::magnet_machine_winding(g);
-  mesh::Mesh full = mesh::build(g, {2, false}, {});
-  mesh::Mesh sector = mesh::build(g, {2, false}, mesh::with_sector({}, *mesh::choose_sector(g, w)));
+  testing::FullAndSector meshes = testing::full_and_sector(g, w);
+  mesh::Mesh& full = meshes.full;
+  mesh::Mesh& sector = meshes.sector;
 };
 
 const Models& models() {

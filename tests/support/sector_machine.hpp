@@ -8,7 +8,11 @@
 
 #include <Eigen/Core>
 
+#include <doctest/doctest.h>
+
+#include "mesh/build.hpp"
 #include "mesh/geometry.hpp"
+#include "mesh/symmetry.hpp"
 #include "mesh/winding.hpp"
 #include "support/sample_geometry.hpp"
 #include "support/winding_spec.hpp"
@@ -30,6 +34,16 @@ inline mesh::Geometry magnet_machine() {
 /// 24 slots, 4 poles, double layer, coil pitch 5 of 6 slots, 10 conductors per coil side.
 inline mesh::Winding magnet_machine_winding(const mesh::Geometry& g) {
   return mesh::lay_out(winding_spec(3, 4, 2, 5, 10), g.stator);
+}
+
+/// The magnet machine meshed whole and as the sector choose_sector picks (a quarter, anti-periodic).
+struct FullAndSector {
+  mesh::Mesh full, sector;
+};
+inline FullAndSector full_and_sector(const mesh::Geometry& g, const mesh::Winding& w) {
+  const auto choice = mesh::choose_sector(g, w);
+  REQUIRE(choice.has_value());
+  return {mesh::build(g, {2, false}, {}), mesh::build(g, {2, false}, mesh::with_sector({}, *choice))};
 }
 
 /// Balanced three-phase currents [A] at electrical angle wt: i_k = peak cos(wt - 2 pi k / 3).
