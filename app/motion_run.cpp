@@ -23,6 +23,7 @@
 #include "post/tables.hpp"
 #include "post/torque.hpp"
 #include "post/vtu.hpp"
+#include "solver/errors.hpp"
 #include "solver/flux_linkage.hpp"
 #include "solver/motion.hpp"
 
@@ -72,11 +73,22 @@ double virtual_work(const Context& x, solver::MotionSolver& s, int k, const solv
   return x.c.stack_length * post::virtual_work_torque(minus, plus, solver::sliding_pitch(x.m));
 }
 
+/// The field of step k; a failure names the step, the rotor angle and the instant.
+solver::PositionField solve_named(const Context& x, solver::MotionSolver& s, int k) {
+  try {
+    return s.solve(x.plan.shift[k], x.plan.currents[k]);
+  } catch (const solver::SolveError& e) {
+    constexpr double deg = 180.0 / std::numbers::pi;
+    throw solver::SolveError(fmt::format("step {} (rotor at {:.3f} deg, electrical angle {:.2f} deg): {}", k,
+                                         x.plan.rotor_angle[k] * deg, x.plan.electrical_angle[k] * deg, e.what()));
+  }
+}
+
 /// Solves step k (warm-started from the previous field) and everything that needs its solver state.
 post::PositionStep solve_step(const Context& x, solver::MotionSolver& s, int k, Eigen::VectorXd& field,
                               post::StepResult& gap) {
   const int p = x.c.winding.pole_pairs();
-  const solver::PositionField f = s.solve(x.plan.shift[k], x.plan.currents[k]);
+  const solver::PositionField f = solve_named(x, s, k);
   field = f.a;
   // B_θ on the circle reads the rotor-side triangles, which face other chords once the rotor turned.
   const post::GapOperators ops = post::gap_operators(x.m, x.c.study.n_gap_points, p * x.c.study.max_harmonic, f.shift);
