@@ -98,7 +98,7 @@ post::PositionStep solve_step(const Context& x, solver::MotionSolver& s, int k, 
   post::PositionStep step;
   step.rotor_angle = x.plan.rotor_angle[k];
   step.newton_iterations = f.newton.iterations;
-  step.newton_residual = f.newton.residual;
+  step.newton_residual = f.relative_residual;
   step.torque_arkkio = post::arkkio_torque_static(x.m, f.a, x.c.stack_length);
   step.torque_circle = post::circle_torque(ops, f.a, x.c.stack_length);
   step.flux_linkage = phase_flux(x, f.a);

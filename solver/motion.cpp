@@ -135,13 +135,14 @@ PositionField MotionSolver::solve(int shift, const std::vector<double>& currents
   PositionField out;
   out.shift = shift;
   out.newton = s.solver.solve(f, a);
+  out.relative_residual = f.norm() > 0.0 ? out.newton.residual / f.norm() : 0.0;
   s.stats.solve_seconds += since(t);
   ++s.stats.n_solves;
   s.stats.n_iterations += out.newton.iterations;
   if (!out.newton.converged) {
     std::ostringstream msg;
     msg << "Newton iterations did not converge in " << out.newton.iterations << " iterations (residual "
-        << out.newton.residual << " relative); usual causes: a B-H table that ends far below the flux densities "
+        << out.relative_residual << " of the load); usual causes: a B-H table that ends far below the flux densities "
         << "reached, or currents far beyond the machine's rating";
     throw SolveError(msg.str());
   }

@@ -28,6 +28,7 @@ struct PositionField {
   int shift = 0;             ///< sliding pitches the rotor is turned by
   Eigen::VectorXd a;         ///< nodal A_z [Wb/m], #nodes; rotor nodes in the rotor's own frame
   NewtonReport newton;       ///< iterations and residual (1 iteration when every material is linear)
+  double relative_residual = 0.0;  ///< ||K(a) a - f|| / ||f|| at the solution
   double coenergy = 0.0;     ///< magnetic co-energy per metre [J/m] (stationary form), up to a constant of the magnets
 };
 
