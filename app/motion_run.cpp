@@ -20,9 +20,7 @@
 #include "post/motion_output.hpp"
 #include "post/study.hpp"
 #include "post/summary.hpp"
-#include "post/tables.hpp"
 #include "post/torque.hpp"
-#include "post/vtu.hpp"
 #include "solver/errors.hpp"
 #include "solver/flux_linkage.hpp"
 #include "solver/motion.hpp"
@@ -40,16 +38,12 @@ double study_speed(const Case& c) {
   return 2 * std::numbers::pi * c.supply.frequency / c.winding.pole_pairs();
 }
 
-double min_flux(const post::MotionResult& r, int phase) {
-  double v = r.steps.front().flux_linkage[phase];
-  for (const auto& s : r.steps) v = std::min(v, s.flux_linkage[phase]);
-  return v;
-}
-
-double max_flux(const post::MotionResult& r, int phase) {
-  double v = r.steps.front().flux_linkage[phase];
-  for (const auto& s : r.steps) v = std::max(v, s.flux_linkage[phase]);
-  return v;
+/// Smallest and largest flux linkage [Wb] of one phase over the steps.
+std::pair<double, double> flux_range(const post::MotionResult& r, int phase) {
+  const auto [lo, hi] = std::minmax_element(r.steps.begin(), r.steps.end(), [phase](const auto& a, const auto& b) {
+    return a.flux_linkage[phase] < b.flux_linkage[phase];
+  });
+  return {lo->flux_linkage[phase], hi->flux_linkage[phase]};
 }
 
 struct Context {
@@ -246,8 +240,9 @@ void print_motion(std::ostream& out, const Case& c, const post::MotionResult& r,
   if (c.study.virtual_work) print_torque(out, "virtual work", r.virtual_work);
   out << fmt::format("  cogging period {:.3f} deg expected (360/LCM(Q, 2p)), {:.3f} deg in the Arkkio torque\n",
                      r.cogging_period_expected * deg, r.cogging_period_measured * deg);
-  out << fmt::format("  flux linkage A {:.5g} .. {:.5g} Wb, Newton iterations per solve {:.2f}\n",
-                     min_flux(r, 0), max_flux(r, 0), r.mean_newton_iterations);
+  const auto [psi_min, psi_max] = flux_range(r, 0);
+  out << fmt::format("  flux linkage A {:.5g} .. {:.5g} Wb, Newton iterations per solve {:.2f}\n", psi_min, psi_max,
+                     r.mean_newton_iterations);
   if (!r.iron_loss.empty()) {
     double total = 0.0;
     for (const auto& [region, watts] : r.iron_loss) total += watts;
