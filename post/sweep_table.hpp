@@ -1,0 +1,43 @@
+#pragma once
+// The results of a sweep as one table: a row per variant with its varied inputs, its status and
+// its headline numbers. Filled by app/ from the variants' summary.json files; written as
+// sweep_summary.csv and drawn in the sweep's report.
+
+#include <cmath>
+#include <limits>
+#include <string>
+#include <vector>
+
+namespace tf::post {
+
+/// One headline number of a variant, as a column of the table.
+struct MetricColumn {
+  std::string key;            ///< column name in the CSV, e.g. "fundamental_T"
+  std::string label;          ///< for people, e.g. "B_r fundamental"
+  std::string unit;           ///< e.g. "T", "%", "N·m"; empty for ratios
+  bool lower_is_better = false;
+};
+
+/// A variant whose status is not "ok" has its message set and every metric NaN.
+struct SweepRow {
+  std::string variant;              ///< folder name (a stable hash of its inputs)
+  std::vector<std::string> inputs;  ///< one per SweepTable::parameters, as written in the case file
+  std::string status;               ///< "ok", "failed", "invalid" or "missing"
+  std::string message;              ///< why it failed; empty when ok
+  std::vector<double> metrics;      ///< one per SweepTable::metrics; NaN where not computed
+  int rank = 0;                     ///< 1 = best by SweepTable::rank_by; 0 = not ranked
+};
+
+struct SweepTable {
+  std::string title;                    ///< of the study
+  std::string study_file;               ///< as given on the command line
+  std::string base_case;                ///< path of the base case
+  std::vector<std::string> parameters;  ///< varied case keys, dotted ("stator.slot_opening")
+  std::vector<MetricColumn> metrics;
+  std::vector<SweepRow> rows;           ///< in the study's order of variants
+  int rank_by = -1;                     ///< index into metrics; -1 = no ranking
+};
+
+inline constexpr double kNoValue = std::numeric_limits<double>::quiet_NaN();
+
+}  // namespace tf::post
