@@ -14,6 +14,13 @@ namespace tf::app {
 /// describes a geometry or winding that does not fit together. The message names file and line.
 Case read_case(const std::string& path);
 
+/// The same for a case held in memory (a sweep's variant); `path` names it in messages, and line
+/// numbers are those of `text`.
+Case read_case_text(const std::string& path, const std::string& text);
+
+/// The text of a case file; throws InputError when it is missing, a folder or unreadable.
+std::string read_case_file(const std::string& path);
+
 /// The case with `steps` steps instead of its own (from the command line), checked again.
 /// Throws InputError for studies without steps to change, or when the new count does not fit.
 void override_steps(Case& c, int steps);

@@ -1,10 +1,12 @@
-// turnfield command line: check, winding, mesh, run, compare.
+// turnfield command line: check, winding, mesh, run, compare, sweep, collect.
 // Exit status: 0 success, 2 bad input (case file or command line), 1 failure while meshing,
 // solving or writing.
 
 #include <algorithm>
 #include <filesystem>
 #include <iostream>
+#include <sstream>
+#include <type_traits>
 #include <string>
 #include <vector>
 
@@ -16,6 +18,8 @@
 #include "app/motion_run.hpp"
 #include "app/input_error.hpp"
 #include "app/run_case.hpp"
+#include "app/sweep_collect.hpp"
+#include "app/sweep_run.hpp"
 #include "app/winding_report.hpp"
 #include "mesh/mesh.hpp"
 #include "post/atomic_file.hpp"
@@ -27,10 +31,22 @@ namespace fs = std::filesystem;
 
 fs::path default_out_dir(const std::string& case_path) { return fs::path("results") / fs::path(case_path).stem(); }
 
+/// "k/N" with 1 <= k <= N; throws InputError otherwise.
+tf::app::Shard parse_shard(const std::string& text) {
+  tf::app::Shard s;
+  char slash = 0, rest = 0;
+  std::istringstream in(text);
+  if (!(in >> s.k >> slash >> s.n) || slash != '/' || in >> rest || s.n < 1 || s.k < 1 || s.k > s.n)
+    throw tf::app::InputError("--shard " + text + ": expected k/N with 1 <= k <= N, e.g. --shard 2/8");
+  return s;
+}
+
+/// Runs `action`, whose int result is the exit status; exceptions become messages and 2 or 1.
 template <class Action>
 int guarded(Action action) {
   try {
-    action();
+    if constexpr (std::is_same_v<decltype(action()), int>) return action();
+    else action();
     return 0;
   } catch (const tf::app::InputError& e) {
     std::cerr << "error: " << e.what() << '\n';
@@ -86,12 +102,42 @@ int main(int argc, char** argv) {
   compare->add_option("--field-files", field_files, "override the number of VTU files per case (0: none)")
       ->check(CLI::Range(0, 1000000));
 
+  tf::app::SweepOptions sweep_options;
+  std::string shard = "1/1", rank_by;
+  std::vector<std::string> collect_dirs;
+  auto* sweep = cli.add_subcommand("sweep", "run every variant of a study file, several at a time, and rank them");
+  sweep->add_option("STUDY", case_path, "study file (TOML): a base case and the keys to vary")->required();
+  sweep->add_option("--out", out_dir, "output folder (default results/<study name>)");
+  sweep->add_option("-j,--jobs", sweep_options.jobs, "variants at once (default: the number of cores)")
+      ->check(CLI::Range(1, 1024));
+  sweep->add_flag("--dry-run", sweep_options.dry_run, "list the variants and any invalid ones; run nothing");
+  sweep->add_option("--shard", shard, "run only share k of N (k/N), for several machines; then collect");
+  sweep->add_flag("--retry-failed", sweep_options.retry_failed, "run again the variants recorded as failed");
+  sweep->add_option("--rank-by", rank_by, "metric to rank by: name, name:lowest or name:highest");
+  auto* collect = cli.add_subcommand("collect", "merge the folders of a sweep's shards into one summary and report");
+  collect->add_option("DIRS", collect_dirs, "the shards' output folders")->required()->expected(1, 100000);
+  collect->add_option("--out", out_dir, "where the summary goes (default: the first folder)");
+  collect->add_option("--rank-by", rank_by, "metric to rank by: name, name:lowest or name:highest");
+
   try {
     cli.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
     const int code = cli.exit(e);
     return code == 0 ? 0 : 2;
   }
+
+  if (sweep->parsed())
+    return guarded([&] {
+      sweep_options.shard = parse_shard(shard);
+      sweep_options.rank_by = rank_by;
+      sweep_options.out_dir = out_dir.empty() ? default_out_dir(case_path) : fs::path(out_dir);
+      return tf::app::run_sweep(case_path, sweep_options, std::cout, std::cerr);
+    });
+  if (collect->parsed())
+    return guarded([&] {
+      std::vector<fs::path> dirs(collect_dirs.begin(), collect_dirs.end());
+      return tf::app::collect_sweep({dirs, out_dir.empty() ? dirs.front() : fs::path(out_dir), rank_by}, std::cout);
+    });
 
   if (compare->parsed())
     return guarded([&] {
