@@ -8,6 +8,7 @@
 #include "app/case_reader.hpp"
 #include "app/input_error.hpp"
 #include "app/study_file.hpp"
+#include "app/sweep_metrics.hpp"
 #include "app/variants.hpp"
 #include "support/cli_run.hpp"
 
@@ -106,4 +107,24 @@ TEST_CASE("a bad study file is refused with its line and key") {
   CHECK(message_of(study("none", "title = \"no keys\"\n")).find("vary") != std::string::npos);
   CHECK(message_of(study("same", "[[vary]]\nkey = \"winding.coil_pitch\"\nvalues = [4, 4]\n")).empty());  // read fine ...
   CHECK_THROWS_AS(expand_variants(read_study_file(study("same2", "[[vary]]\nkey = \"winding.coil_pitch\"\nvalues = [4, 4]\n"))), InputError);  // ... but two equal variants are refused
+}
+
+TEST_CASE("ranking puts the best value first in the metric's own direction, or the one asked for") {
+  tf::post::SweepTable t{"t", "s", "b", {"k"}, sweep_metric_columns(), {}, -1};
+  const double nan = tf::post::kNoValue;
+  const std::vector<double> ripple = {0.30, 0.05, nan, 0.10};
+  for (std::size_t i = 0; i < ripple.size(); ++i) {
+    std::vector<double> m(t.metrics.size(), nan);
+    m[2] = ripple[i];  // peak_field_ripple
+    t.rows.push_back({"v" + std::to_string(i), {"1"}, i == 2 ? "failed" : "ok", "", m, 0});
+  }
+  rank_rows(t, "peak_field_ripple");
+  CHECK(t.rows[1].rank == 1);
+  CHECK(t.rows[3].rank == 2);
+  CHECK(t.rows[0].rank == 3);
+  CHECK(t.rows[2].rank == 0);  // failed: not ranked
+  rank_rows(t, "peak_field_ripple:highest");
+  CHECK(t.rows[0].rank == 1);
+  CHECK_THROWS_AS(rank_rows(t, "ripple"), InputError);
+  CHECK_THROWS_AS(rank_rows(t, "peak_field_ripple:best"), InputError);
 }

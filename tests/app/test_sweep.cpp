@@ -131,3 +131,25 @@ TEST_CASE("two shards collected equal one unsharded run") {
   CHECK(alone.output.find("2 ok, 4 failed or invalid or missing") != std::string::npos);
   CHECK(text_of(alone_dir / "sweep_summary.csv").find(",missing,") != std::string::npos);
 }
+
+TEST_CASE("every study in cases/studies lists valid variants") {
+  int n = 0;
+  for (const auto& entry : fs::directory_iterator(fs::path(TF_SOURCE_DIR) / "cases" / "studies")) {
+    if (entry.path().extension() != ".toml") continue;
+    INFO(entry.path().string());
+    const auto r = turnfield("sweep " + entry.path().string() + " --dry-run --out " + fresh_folder("dry").string());
+    CHECK(r.status == 0);
+    CHECK(r.output.find(" 0 invalid") != std::string::npos);
+    ++n;
+  }
+  CHECK(n >= 1);
+}
+
+TEST_CASE("a sweep's command line refuses what it cannot do, with exit status 2") {
+  CHECK(turnfield("sweep " + kStudy + " --shard 3/2 --dry-run").status == 2);
+  CHECK(turnfield("sweep " + kStudy + " --shard x --dry-run").status == 2);
+  CHECK(turnfield("collect " + fs::temp_directory_path().string()).status == 2);  // not a sweep's folder
+  const auto r = turnfield("collect " + reference_run().out.string() + " --rank-by torque");
+  CHECK(r.status == 2);
+  CHECK(r.output.find("no such metric") != std::string::npos);
+}
