@@ -1,12 +1,17 @@
 #include "post/atomic_file.hpp"
 
 #include <fstream>
+#include <string>
 #include <system_error>
+
+#include <unistd.h>
 
 namespace tf::post {
 
 std::filesystem::path temporary_name(const std::filesystem::path& path) {
-  return path.parent_path() / ("." + path.filename().string() + ".partial");
+  // The process id keeps two processes that write the same file (shards of a sweep writing
+  // sweep.json into one shared folder) from writing into each other's temporary file.
+  return path.parent_path() / ("." + path.filename().string() + "." + std::to_string(getpid()) + ".partial");
 }
 
 void prepare_result_folder(const std::filesystem::path& dir) {
