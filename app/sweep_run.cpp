@@ -160,8 +160,13 @@ int run_sweep(const std::string& study_path, const SweepOptions& o, std::ostream
       continue;
     }
     prepare_variant(dir, v);
-    if (problems[v.index].empty()) queue.push_back(&v);
-    else write_variant_record(dir, {v.id, "invalid", problems[v.index], 0.0}), ++tally.failed;
+    if (problems[v.index].empty()) {
+      queue.push_back(&v);
+    } else {
+      write_variant_record(dir, {v.id, "invalid", problems[v.index], 0.0});
+      ++tally.failed;
+      out << "invalid: " << problems[v.index] << '\n';
+    }
   }
   const int jobs = o.jobs > 0 ? o.jobs : static_cast<int>(std::max(1u, std::thread::hardware_concurrency()));
   out << fmt::format("{}: {} variants{}; {} done already, {} invalid, {} to run, {} at a time\n", s.path, variants.size(),
