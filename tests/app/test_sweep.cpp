@@ -59,14 +59,28 @@ const Run& reference_run() {
   return run;
 }
 
-/// Whether a process still runs whose command line mentions `text` (a variant orphaned by a kill).
-bool process_mentions(const std::string& text) {
+/// A process whose command line holds every one of `words` (0 if none): a sweep's variant.
+pid_t process_with(const std::vector<std::string>& words) {
   for (const auto& entry : fs::directory_iterator("/proc")) {
     std::ifstream in(entry.path() / "cmdline");
-    std::string cmdline((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
-    if (cmdline.find(text) != std::string::npos) return true;
+    const std::string cmdline((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+    bool all = !cmdline.empty();
+    for (const auto& w : words) all = all && cmdline.find(w) != std::string::npos;
+    if (all) return static_cast<pid_t>(std::stol(entry.path().filename().string()));
   }
-  return false;
+  return 0;
+}
+
+/// Starts `turnfield sweep` with the study, out folder and -j 1, without waiting; returns its pid.
+pid_t start_sweep(const fs::path& out) {
+  const pid_t pid = fork();
+  REQUIRE(pid >= 0);
+  if (pid == 0) {
+    const std::string o = out.string();
+    execl(TF_BINARY, TF_BINARY, "sweep", kStudy.c_str(), "--out", o.c_str(), "-j", "1", static_cast<char*>(nullptr));
+    _exit(127);
+  }
+  return pid;
 }
 
 }  // namespace
@@ -89,13 +103,7 @@ TEST_CASE("a sweep of six variants with one invalid: five results, an error row,
 
 TEST_CASE("a sweep killed midway and run again ends with the summary of an uninterrupted run") {
   const fs::path out = fresh_folder("sweep_killed");
-  const pid_t pid = fork();
-  REQUIRE(pid >= 0);
-  if (pid == 0) {
-    const std::string o = out.string();
-    execl(TF_BINARY, TF_BINARY, "sweep", kStudy.c_str(), "--out", o.c_str(), "-j", "1", static_cast<char*>(nullptr));
-    _exit(127);
-  }
+  const pid_t pid = start_sweep(out);
   const auto deadline = std::chrono::steady_clock::now() + std::chrono::seconds(120);
   while (variants_done(out) < 2 && std::chrono::steady_clock::now() < deadline)  // the invalid one and one run
     std::this_thread::sleep_for(std::chrono::milliseconds(20));
@@ -107,12 +115,35 @@ TEST_CASE("a sweep killed midway and run again ends with the summary of an unint
   CHECK(done_before >= 2);
   CHECK(done_before < 6);  // killed midway, not after the end
   std::this_thread::sleep_for(std::chrono::milliseconds(300));
-  CHECK_FALSE(process_mentions(out.string()));  // the variant that was running died with the sweep
+  CHECK(process_with({out.string()}) == 0);  // the variant that was running died with the sweep
 
   const auto rerun = turnfield("sweep " + kStudy + " --out " + out.string() + " -j 1");
   CHECK(rerun.status == 1);
   CHECK(rerun.output.find(std::to_string(done_before) + " done already") != std::string::npos);
   CHECK(text_of(out / "sweep_summary.csv") == text_of(reference_run().out / "sweep_summary.csv"));
+}
+
+TEST_CASE("a variant that crashes is recorded as failed and the others go on") {
+  const fs::path out = fresh_folder("sweep_crash");
+  const pid_t sweep = start_sweep(out);
+  pid_t variant = 0;  // the first variant's run, killed as a crash would end it
+  const auto deadline = std::chrono::steady_clock::now() + std::chrono::seconds(60);
+  while (variant == 0 && std::chrono::steady_clock::now() < deadline) {
+    variant = process_with({std::string("\0run\0", 5), out.string()});  // arguments are NUL-separated
+    std::this_thread::sleep_for(std::chrono::milliseconds(5));
+  }
+  REQUIRE(variant != 0);
+  kill(variant, SIGKILL);
+  int status = 0;
+  waitpid(sweep, &status, 0);
+  CHECK(WEXITSTATUS(status) == 1);
+  const auto rows = lines_of(text_of(out / "sweep_summary.csv"));
+  REQUIRE(rows.size() == 7);
+  int ok = 0, failed = 0;
+  for (const auto& row : rows) ok += row.find(",ok,") != std::string::npos, failed += row.find(",failed,") != std::string::npos;
+  CHECK(ok == 4);
+  CHECK(failed == 1);
+  CHECK(text_of(out / "sweep_summary.csv").find("killed by signal 9") != std::string::npos);
 }
 
 TEST_CASE("two shards collected equal one unsharded run") {
