@@ -16,6 +16,7 @@
 #include "post/atomic_file.hpp"
 #include "post/eddy_output.hpp"
 #include "post/summary.hpp"
+#include "post/tables.hpp"
 #include "post/vtu.hpp"
 #include "solver/assemble.hpp"
 #include "solver/eddy.hpp"
@@ -157,6 +158,9 @@ void run_eddy_case(const Case& given, const RunOptions& options, std::ostream& o
   const int n_files = options.all_field_files ? static_cast<int>(rows.size()) : c.study.n_field_files;
   const auto vtu = write_fields(dir, static_cast<int>(rows.size()), n_files, progress, solved.write_field);
   record.files.insert(record.files.end(), vtu.begin(), vtu.end());
+  post::write_regions_table(dir / "regions.csv", m);
+  post::write_report(dir, post::eddy_study_page(report_context(c, m, w), rows));
+  record.files.insert(record.files.end(), {"regions.csv", "report.html"});
   record.seconds.push_back({"write", since(t)});
   progress.finish();
 

@@ -1,5 +1,7 @@
 #include "post/vtu.hpp"
 
+#include <fmt/format.h>
+
 #include <vtkCellArray.h>
 #include <vtkCellData.h>
 #include <vtkDoubleArray.h>
@@ -107,7 +109,9 @@ void write_collection(const std::filesystem::path& path, const std::vector<Colle
   write_atomically(path, [&](std::ostream& out) {
     out << "<?xml version=\"1.0\"?>\n<VTKFile type=\"Collection\" version=\"0.1\">\n  <Collection>\n";
     for (const auto& e : entries)
-      out << "    <DataSet timestep=\"" << e.time << "\" part=\"0\" file=\"" << e.filename << "\"/>\n";
+      // 12 significant digits: the default 6 can print two close steps of a long study as the same time.
+      out << "    <DataSet timestep=\"" << fmt::format("{:.12g}", e.time) << "\" part=\"0\" file=\"" << e.filename
+          << "\"/>\n";
     out << "  </Collection>\n</VTKFile>\n";
   });
 }
