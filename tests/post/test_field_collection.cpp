@@ -49,7 +49,7 @@ TEST_CASE("a written collection reads back: increasing times, existing files, na
 
   std::ifstream in(dir / "field.pvd");
   const std::string pvd((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
-  const std::regex dataset(R"(<DataSet[^>]*timestep="([^"]+)"[^>]*file="([^"]+)")");
+  const std::regex dataset(R"re(<DataSet[^>]*timestep="([^"]+)"[^>]*file="([^"]+)")re");
   std::vector<double> times;
   std::vector<std::string> files;
   for (auto it = std::sregex_iterator(pvd.begin(), pvd.end(), dataset); it != std::sregex_iterator(); ++it) {
