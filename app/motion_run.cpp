@@ -254,6 +254,21 @@ void print_motion(std::ostream& out, const Case& c, const post::MotionResult& r,
   out << "  " << post::kSafetyCaution << "\n";
 }
 
+/// The steps whose nodal fields solve_motion keeps: the field files' and the report's, in step order.
+std::vector<int> kept_steps(std::vector<int> file_steps, int report_step) {
+  if (std::find(file_steps.begin(), file_steps.end(), report_step) == file_steps.end()) file_steps.push_back(report_step);
+  std::sort(file_steps.begin(), file_steps.end());
+  return file_steps;
+}
+
+/// The fields of `steps`, picked from those kept for the steps `kept` (in that order).
+std::vector<Eigen::VectorXd> fields_of(const std::vector<int>& kept, const std::vector<Eigen::VectorXd>& fields,
+                                       const std::vector<int>& steps) {
+  std::vector<Eigen::VectorXd> out;
+  for (int k : steps) out.push_back(fields[static_cast<std::size_t>(std::find(kept.begin(), kept.end(), k) - kept.begin())]);
+  return out;
+}
+
 /// regions.csv and report.html, with the cross-section of step k drawn with its rotor where it stood.
 void write_motion_report(const fs::path& dir, const Context& x, const post::MotionResult& r, int k,
                          const Eigen::VectorXd& field) {
@@ -290,10 +305,7 @@ void run_motion_case(const Case& given, const RunOptions& options, std::ostream&
   solver::MotionSolver solver(m, w, c.materials, solver::magnet_layout(c.geometry.rotor));
   const int n_files = options.all_field_files ? c.study.n_steps : c.study.n_field_files;
   const std::vector<int> file_steps = n_files > 0 ? post::field_file_steps(c.study.n_steps, n_files) : std::vector<int>{};
-  // The report's step is kept too, after the field files' steps.
-  std::vector<int> kept = file_steps;
-  if (std::find(kept.begin(), kept.end(), options.report_step) == kept.end()) kept.push_back(options.report_step);
-  std::sort(kept.begin(), kept.end());  // solve_motion keeps fields in step order
+  const std::vector<int> kept = kept_steps(file_steps, options.report_step);
   std::vector<Eigen::VectorXd> fields;
   std::optional<post::FluxHistory> history = flux_history(c, m, plan);
   post::MotionResult r = solve_motion(x, solver, kept, fields, history ? &*history : nullptr, progress);
@@ -313,12 +325,9 @@ void run_motion_case(const Case& given, const RunOptions& options, std::ostream&
     post::write_iron_loss(dir, m, loss);
     record.files.insert(record.files.end(), {"iron_loss.csv", "iron_loss.vtu"});
   }
-  const auto field_of = [&](int k) { return fields[static_cast<std::size_t>(std::find(kept.begin(), kept.end(), k) - kept.begin())]; };
-  std::vector<Eigen::VectorXd> file_fields;
-  for (int k : file_steps) file_fields.push_back(field_of(k));
-  const auto vtu = post::write_motion_fields(dir, m, r, file_steps, file_fields, step_times(c, plan));
+  const auto vtu = post::write_motion_fields(dir, m, r, file_steps, fields_of(kept, fields, file_steps), step_times(c, plan));
   record.files.insert(record.files.end(), vtu.begin(), vtu.end());
-  write_motion_report(dir, x, r, options.report_step, field_of(options.report_step));
+  write_motion_report(dir, x, r, options.report_step, fields_of(kept, fields, {options.report_step}).front());
   record.files.insert(record.files.end(), {"regions.csv", "report.html"});
   record.seconds.push_back({"write", since(t)});
   progress.finish();

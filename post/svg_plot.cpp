@@ -28,6 +28,8 @@ std::string escape(const std::string& text) {
 std::string format_number(double v, int digits) {
   if (!std::isfinite(v)) return "–";
   if (v == 0.0) return "0";  // also turns -0 into 0
+  // Whole numbers below ten million keep all their digits: "1250", not "1.25e+03".
+  if (std::abs(v) >= 1.0 && std::abs(v) < 1e7) digits = std::max(digits, static_cast<int>(std::log10(std::abs(v))) + 1);
   return fmt::format("{:.{}g}", v, digits);
 }
 

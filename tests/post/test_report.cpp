@@ -105,6 +105,14 @@ TEST_CASE("nice ticks: 1, 2, 2.5 or 5 times a power of ten, equally spaced, cove
   CHECK(flat.back() > 0.6664);
 }
 
+TEST_CASE("numbers print short but whole numbers keep their digits") {
+  CHECK(svg::format_number(1250.0, 3) == "1250");
+  CHECK(svg::format_number(0.30000000000000004) == "0.3");
+  CHECK(svg::format_number(-0.0) == "0");
+  CHECK(svg::format_number(1.5e-5) == "1.5e-05");
+  CHECK(svg::format_number(std::nan("")) == "–");
+}
+
 TEST_CASE("colour bins cover min .. max and the field map draws every triangle once") {
   CHECK(svg::colour_bin(1.0, 1.0, 3.0, 32) == 0);
   CHECK(svg::colour_bin(3.0, 1.0, 3.0, 32) == 31);
