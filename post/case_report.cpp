@@ -216,8 +216,10 @@ Page motion_study_page(const ReportContext& x, const MotionResult& r) {
     arkkio.y.push_back(s.torque_arkkio), circle.y.push_back(s.torque_circle), work.y.push_back(s.torque_virtual_work);
   }
   arkkio.x = circle.x = work.x = angle;
-  svg::LineChart torque{"Torque against rotor angle", {"rotor angle", "° mech."}, {"torque", "N·m"}, {arkkio, circle}, {}};
+  // Arkkio's (the main value) drawn last, on top of the cross-checks that often coincide with it.
+  svg::LineChart torque{"Torque against rotor angle", {"rotor angle", "° mech."}, {"torque", "N·m"}, {circle}, {}};
   if (std::any_of(work.y.begin(), work.y.end(), [](double v) { return std::isfinite(v); })) torque.series.push_back(work);
+  torque.series.push_back(arkkio);
   page.figures.push_back({"torque", "Torque on the rotor at each position by three methods.", svg::line_chart(torque)});
   add_gap_figures(page, x, r.gap, angle, {"rotor angle", "° mech."});
   page.appendix.push_back(inputs_section(x.inputs_json));
