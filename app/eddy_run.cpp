@@ -16,6 +16,7 @@
 #include "post/atomic_file.hpp"
 #include "post/eddy_output.hpp"
 #include "post/summary.hpp"
+#include "post/tables.hpp"
 #include "post/vtu.hpp"
 #include "solver/assemble.hpp"
 #include "solver/eddy.hpp"
@@ -79,6 +80,7 @@ struct Solved {
   std::vector<double> sigma;   ///< per region, as solved [S/m]
   std::vector<bool> on_rotor;  ///< per region
   std::function<void(int, const fs::path&)> write_field;  ///< speed k's VTU file
+  std::function<Eigen::VectorXcd(int)> field;            ///< speed k's A [Wb/m] as its VTU file draws it
 };
 
 /// The motion term sigma omega_r dA/dtheta: exact for rotationally invariant rotors.
@@ -87,14 +89,17 @@ Solved solve_by_motion(const Case& c, const mesh::Mesh& m, const mesh::Winding& 
   const solver::EddySystem system = solver::assemble_eddy(m, w, c.materials);
   record.stats.assemble_seconds = since(t);
   const auto currents = solver::supply_phasors(c.supply, c.winding.n_phases);
-  const auto solutions = solver::solve_eddy(m, system, currents, c.supply.frequency, c.study.rotor_speeds, record.stats);
+  // Shared by the two closures below rather than copied into each.
+  const auto solutions = std::make_shared<const std::vector<solver::EddySolution>>(
+      solver::solve_eddy(m, system, currents, c.supply.frequency, c.study.rotor_speeds, record.stats));
   const post::SpeedInputs in{&m, &w, solver::region_conductivity(m, c.materials), solver::region_on_rotor(m),
                              currents, c.supply.frequency, c.stack_length};
-  Solved out{{}, in.sigma, in.on_rotor, {}};
-  for (const auto& x : solutions) out.rows.push_back(post::evaluate_speed(in, x.rotor_speed, x.potential));
+  Solved out{{}, in.sigma, in.on_rotor, {}, {}};
+  for (const auto& x : *solutions) out.rows.push_back(post::evaluate_speed(in, x.rotor_speed, x.potential));
   out.write_field = [&m, in, solutions](int k, const fs::path& path) {
-    post::write_eddy_vtu(path, m, solutions[k].potential, in, solutions[k].rotor_speed);
+    post::write_eddy_vtu(path, m, (*solutions)[k].potential, in, (*solutions)[k].rotor_speed);
   };
+  out.field = [solutions](int k) { return (*solutions)[k].potential; };
   return out;
 }
 
@@ -110,7 +115,8 @@ Solved solve_by_slip(const Case& c, const mesh::Mesh& m, const mesh::Winding& w,
   double rest = 0.0;
   for (const auto& i : study->components.rest) rest = std::max(rest, std::abs(i));
   record.unmodelled_current = rest;
-  Solved out{study->rows, solver::slip_conductivity(m, study->materials), solver::slip_on_rotor(m), {}};
+  Solved out{study->rows, solver::slip_conductivity(m, study->materials), solver::slip_on_rotor(m), {}, {}};
+  out.field = [study](int k) { return study->forward[k]; };
   out.write_field = [&m, &w, &c, study, sigma = out.sigma, on = out.on_rotor](int k, const fs::path& path) {
     const double s = study->rows[k].slip;
     const post::SpeedInputs in{&m, &w, sigma, on, study->components.forward, s * c.supply.frequency, c.stack_length};
@@ -157,6 +163,13 @@ void run_eddy_case(const Case& given, const RunOptions& options, std::ostream& o
   const int n_files = options.all_field_files ? static_cast<int>(rows.size()) : c.study.n_field_files;
   const auto vtu = write_fields(dir, static_cast<int>(rows.size()), n_files, progress, solved.write_field);
   record.files.insert(record.files.end(), vtu.begin(), vtu.end());
+  post::write_regions_table(dir / "regions.csv", m);
+  post::ReportContext report = report_context(c, m, w);
+  report.section = {&m, post::peak_flux_density(m, solved.field(options.report_step)),
+                    fmt::format("speed {} ({:.4g} rad/s), peak over a period{}", options.report_step,
+                                rows[options.report_step].rotor_speed, cage ? ", forward component" : "")};
+  post::write_report(dir, post::eddy_study_page(report, rows));
+  record.files.insert(record.files.end(), {"regions.csv", "report.html"});
   record.seconds.push_back({"write", since(t)});
   progress.finish();
 

@@ -75,6 +75,7 @@ int main(int argc, char** argv) {
   double fineness = 0.0;  // 0: as the case file says
   int field_files = -1;   // -1: as the case file says
   int steps = 0;          // 0: as the case file says
+  int report_step = 0;
 
   auto* check = cli.add_subcommand("check", "validate a case file without solving");
   check->add_option("CASE", case_path, "case file (TOML)")->required();
@@ -94,6 +95,8 @@ int main(int argc, char** argv) {
   run->add_option("--fineness", fineness, "override the case's mesh fineness")->check(CLI::Range(0.1, 20.0));
   run->add_option("--steps", steps, "override the number of steps of a phase-angle or rotor-motion study")
       ->check(CLI::Range(2, 100000));
+  run->add_option("--report-step", report_step,
+                  "step (eddy currents: speed number) whose cross-section report.html draws, from 0 (default 0)");
 
   auto* compare = cli.add_subcommand("compare", "run several cases and tabulate their field metrics side by side");
   compare->add_option("CASES", case_paths, "case files (TOML)")->required()->expected(2, 1000);
@@ -162,7 +165,9 @@ int main(int argc, char** argv) {
     } else if (mesh->parsed()) {
       tf::app::mesh_case(c, out_dir.empty() ? default_out_dir(case_path) / "mesh" : fs::path(out_dir), std::cout);
     } else {
-      tf::app::RunOptions options{out_dir.empty() ? default_out_dir(case_path) : fs::path(out_dir), all_steps};
+      tf::app::check_report_step(c, report_step);
+      tf::app::RunOptions options{out_dir.empty() ? default_out_dir(case_path) : fs::path(out_dir), all_steps,
+                                  report_step};
       if (c.study.kind == tf::post::StudyKind::eddy_currents)
         tf::app::run_eddy_case(c, options, std::cout);
       else if (tf::app::solved_step_by_step(c))

@@ -20,6 +20,7 @@
 #include "post/motion_output.hpp"
 #include "post/study.hpp"
 #include "post/summary.hpp"
+#include "post/tables.hpp"
 #include "post/torque.hpp"
 #include "solver/errors.hpp"
 #include "solver/flux_linkage.hpp"
@@ -253,6 +254,34 @@ void print_motion(std::ostream& out, const Case& c, const post::MotionResult& r,
   out << "  " << post::kSafetyCaution << "\n";
 }
 
+/// The steps whose nodal fields solve_motion keeps: the field files' and the report's, in step order.
+std::vector<int> kept_steps(std::vector<int> file_steps, int report_step) {
+  if (std::find(file_steps.begin(), file_steps.end(), report_step) == file_steps.end()) file_steps.push_back(report_step);
+  std::sort(file_steps.begin(), file_steps.end());
+  return file_steps;
+}
+
+/// The fields of `steps`, picked from those kept for the steps `kept` (in that order).
+std::vector<Eigen::VectorXd> fields_of(const std::vector<int>& kept, const std::vector<Eigen::VectorXd>& fields,
+                                       const std::vector<int>& steps) {
+  std::vector<Eigen::VectorXd> out;
+  for (int k : steps) out.push_back(fields[static_cast<std::size_t>(std::find(kept.begin(), kept.end(), k) - kept.begin())]);
+  return out;
+}
+
+/// regions.csv and report.html, with the cross-section of step k drawn with its rotor where it stood.
+void write_motion_report(const fs::path& dir, const Context& x, const post::MotionResult& r, int k,
+                         const Eigen::VectorXd& field) {
+  post::write_regions_table(dir / "regions.csv", x.m);
+  post::ReportContext report = report_context(x.c, x.m, x.w);
+  const double angle = r.steps[static_cast<std::size_t>(k)].rotor_angle;
+  const mesh::Mesh drawn = mesh::with_rotor_turned(x.m, post::drawn_rotor_angle(x.m, angle));
+  // |B| does not depend on the sign the image of an anti-periodic sector carries.
+  report.section = {&drawn, post::flux_density_magnitude(x.m, field),
+                    fmt::format("step {} (rotor at {:.4g}° mech.)", k, angle * 180 / std::numbers::pi)};
+  post::write_report(dir, post::motion_study_page(report, r));
+}
+
 }  // namespace
 
 bool solved_step_by_step(const Case& c) {
@@ -276,9 +305,10 @@ void run_motion_case(const Case& given, const RunOptions& options, std::ostream&
   solver::MotionSolver solver(m, w, c.materials, solver::magnet_layout(c.geometry.rotor));
   const int n_files = options.all_field_files ? c.study.n_steps : c.study.n_field_files;
   const std::vector<int> file_steps = n_files > 0 ? post::field_file_steps(c.study.n_steps, n_files) : std::vector<int>{};
+  const std::vector<int> kept = kept_steps(file_steps, options.report_step);
   std::vector<Eigen::VectorXd> fields;
   std::optional<post::FluxHistory> history = flux_history(c, m, plan);
-  post::MotionResult r = solve_motion(x, solver, file_steps, fields, history ? &*history : nullptr, progress);
+  post::MotionResult r = solve_motion(x, solver, kept, fields, history ? &*history : nullptr, progress);
   r.speed = study_speed(c);
   derive_flux_quantities(x, r);
   summarise(x, r, solver.stats());
@@ -295,8 +325,10 @@ void run_motion_case(const Case& given, const RunOptions& options, std::ostream&
     post::write_iron_loss(dir, m, loss);
     record.files.insert(record.files.end(), {"iron_loss.csv", "iron_loss.vtu"});
   }
-  const auto vtu = post::write_motion_fields(dir, m, r, file_steps, fields, step_times(c, plan));
+  const auto vtu = post::write_motion_fields(dir, m, r, file_steps, fields_of(kept, fields, file_steps), step_times(c, plan));
   record.files.insert(record.files.end(), vtu.begin(), vtu.end());
+  write_motion_report(dir, x, r, options.report_step, fields_of(kept, fields, {options.report_step}).front());
+  record.files.insert(record.files.end(), {"regions.csv", "report.html"});
   record.seconds.push_back({"write", since(t)});
   progress.finish();
 

@@ -9,10 +9,12 @@
 
 #include "app/case_json.hpp"
 #include "app/drive.hpp"
+#include "app/input_error.hpp"
 #include "app/progress.hpp"
 #include "mesh/build.hpp"
 #include "mesh/winding.hpp"
 #include "post/atomic_file.hpp"
+#include "post/case_report.hpp"
 #include "post/sequence.hpp"
 #include "post/study.hpp"
 #include "post/summary.hpp"
@@ -114,6 +116,25 @@ std::string model_description(const mesh::Mesh& m) {
                      m.symmetry.anti_periodic ? "anti-periodic" : "periodic");
 }
 
+post::ReportContext report_context(const Case& c, const mesh::Mesh& m, const mesh::Winding& w) {
+  post::ReportContext x;
+  x.title = c.title;
+  x.study = post::study_kind_name(c.study.kind);
+  x.model = model_description(m);
+  x.inputs_json = case_to_json(c);
+  x.pole_pairs = c.winding.pole_pairs();
+  x.winding_factor = mesh::layout_winding_factor(w, 0, w.spec.pole_pairs());
+  return x;
+}
+
+void check_report_step(const Case& c, int report_step) {
+  const bool eddy = c.study.kind == post::StudyKind::eddy_currents;
+  const int n = eddy ? static_cast<int>(c.study.rotor_speeds.size()) : c.study.n_steps;
+  if (report_step < 0 || report_step >= n)
+    throw InputError(fmt::format("--report-step {}: expected a {} from 0 to {} (the study has {} {})", report_step,
+                                 eddy ? "speed number" : "step", n - 1, n, eddy ? "rotor speeds" : "steps"));
+}
+
 MeshedCase mesh_and_wind(const Case& c) {
   mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator);
   mesh::MeshControls controls = c.mesh;
@@ -159,11 +180,19 @@ Headline run_case(const Case& c, const RunOptions& options, std::ostream& out) {
                                        c.supply.frequency, progress);
     record.files.insert(record.files.end(), vtu.begin(), vtu.end());
   }
+  post::write_regions_table(dir / "regions.csv", m);
+  post::ReportContext report = report_context(c, m, w);
+  const post::StepResult& shown = r.steps[options.report_step];
+  report.section = {&m, post::flux_density_magnitude(m, solver::superpose(fields, shown.currents)),
+                    fmt::format("step {} (ωt = {:.4g}° el.)", options.report_step,
+                                shown.electrical_angle * 180 / std::numbers::pi)};
+  post::write_report(dir, post::phase_study_page(report, r));
+  record.files.insert(record.files.end(), {"regions.csv", "report.html"});
   record.seconds.push_back({"write", seconds_since(t)});
   progress.finish();
 
   record.version = kVersion;
-  record.inputs_json = case_to_json(c);
+  record.inputs_json = report.inputs_json;
   record.drive_json = drive_to_json(supply, c.winding.n_phases, drive);
   record.mesh = &m;
   record.winding = &w;
@@ -182,11 +211,7 @@ void mesh_case(const Case& c, const fs::path& out_dir, std::ostream& out) {
   fs::create_directories(out_dir, ec);
   if (ec) throw post::OutputError("could not create the output folder " + out_dir.string() + ": " + ec.message());
   post::write_mesh_vtu(out_dir / "mesh.vtu", m);
-  const std::vector<double> area = mesh::region_areas(m);
-  post::write_atomically(out_dir / "regions.csv", [&](std::ostream& o) {
-    o << "region,name,area_m2\n";
-    for (std::size_t i = 0; i < m.regions.size(); ++i) o << i << ',' << m.regions[i].name << ',' << area[i] << '\n';
-  });
+  post::write_regions_table(out_dir / "regions.csv", m);
   out << fmt::format("{} nodes, {} triangles, {} regions, {} nodes on the sliding circle; {}\n", m.n_nodes(),
                      m.n_triangles(), m.regions.size(), m.sliding.stator_nodes.size(), model_description(m));
   out << fmt::format("wrote {} and {}\n", (out_dir / "mesh.vtu").string(), (out_dir / "regions.csv").string());

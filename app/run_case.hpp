@@ -10,6 +10,7 @@
 #include "mesh/mesh.hpp"
 #include "mesh/symmetry.hpp"
 #include "mesh/winding.hpp"
+#include "post/case_report.hpp"
 #include "post/rotation_metrics.hpp"
 
 namespace tf::app {
@@ -19,6 +20,7 @@ inline constexpr const char* kVersion = "0.1.0";
 struct RunOptions {
   std::filesystem::path out_dir;
   bool all_field_files = false;  ///< a VTU file for every step instead of study.field_files
+  int report_step = 0;  ///< the step (eddy currents: the speed) whose cross-section the report draws
 };
 
 /// The mesh of a case and its winding laid out on it: the first step of every study. The mesh is
@@ -37,6 +39,13 @@ std::optional<mesh::SectorChoice> model_sector(const Case& c, const mesh::Windin
 /// One line saying which model was solved, e.g. "one sector of 6 slots (1/4 of the machine,
 /// anti-periodic)".
 std::string model_description(const mesh::Mesh& m);
+
+/// The parts of the report page every study shares (title, inputs, model, winding factor);
+/// the cross-section is left for the study to fill.
+post::ReportContext report_context(const Case& c, const mesh::Mesh& m, const mesh::Winding& w);
+
+/// Checks RunOptions::report_step against the case's steps (eddy currents: its speeds); throws InputError.
+void check_report_step(const Case& c, int report_step);
 
 /// The headline numbers of one run, for comparisons.
 struct Headline {

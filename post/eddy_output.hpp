@@ -25,6 +25,9 @@ void write_torque_speed(const std::filesystem::path& path, const std::vector<Spe
 void write_eddy_vtu(const std::filesystem::path& path, const mesh::Mesh& m, const Eigen::VectorXcd& a,
                     const SpeedInputs& in, double rotor_speed);
 
+/// Peak over a period of |B| [T] per triangle of the peak phasor A [Wb/m] (#nodes).
+Eigen::VectorXd peak_flux_density(const mesh::Mesh& m, const Eigen::VectorXcd& a);
+
 struct EddyRecord {
   std::string version, inputs_json;
   const mesh::Mesh* mesh = nullptr;

@@ -90,6 +90,11 @@ std::vector<std::string> write_motion_tables(const std::filesystem::path& dir, c
           "torque.csv", "inductances.csv"};
 }
 
+double drawn_rotor_angle(const mesh::Mesh& m, double rotor_angle) {
+  const double sector = 2 * std::numbers::pi / m.symmetry.copies;
+  return rotor_angle - std::floor(rotor_angle / sector) * sector;
+}
+
 std::vector<std::string> write_motion_fields(const std::filesystem::path& dir, const mesh::Mesh& m,
                                              const MotionResult& r, const std::vector<int>& steps,
                                              const std::vector<Eigen::VectorXd>& fields,
@@ -109,7 +114,7 @@ std::vector<std::string> write_motion_fields(const std::filesystem::path& dir, c
     if (m.symmetry.sign_of_copy(static_cast<int>(turns) % 2 == 0 ? 0 : 1) < 0)
       for (int node = 0; node < m.n_nodes(); ++node)
         if (rotor[static_cast<std::size_t>(node)]) a(node) = -a(node);
-    write_field_vtu(dir / name, mesh::with_rotor_turned(m, r.steps[k].rotor_angle - turns * sector), a);
+    write_field_vtu(dir / name, mesh::with_rotor_turned(m, drawn_rotor_angle(m, r.steps[k].rotor_angle)), a);
     entries.push_back({step_time[k], name});
     files.push_back(name);
   }

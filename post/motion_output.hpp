@@ -30,6 +30,10 @@ std::vector<std::string> write_motion_fields(const std::filesystem::path& dir, c
                                              const std::vector<Eigen::VectorXd>& fields,
                                              const std::vector<double>& step_time);
 
+/// The rotor angle [rad] at which a (sector) mesh draws a rotor that stood at rotor_angle: turned
+/// back by whole sectors into the stator's sector (the field there is the image of the field).
+double drawn_rotor_angle(const mesh::Mesh& m, double rotor_angle);
+
 /// iron_loss.csv (per region [W]) and iron_loss.vtu (loss density per triangle [W/m^3]).
 void write_iron_loss(const std::filesystem::path& dir, const mesh::Mesh& m, const IronLoss& loss);
 

@@ -14,6 +14,14 @@ constexpr double kDeg = 180.0 / std::numbers::pi;
 
 }  // namespace
 
+void write_regions_table(const std::filesystem::path& path, const mesh::Mesh& m) {
+  const std::vector<double> area = mesh::region_areas(m);
+  write_atomically(path, [&](std::ostream& o) {
+    o << "region,name,area_m2\n";
+    for (std::size_t i = 0; i < m.regions.size(); ++i) o << i << ',' << m.regions[i].name << ',' << area[i] << '\n';
+  });
+}
+
 std::string phase_name(int k) { return k < 26 ? std::string(1, static_cast<char>('A' + k)) : "P" + std::to_string(k + 1); }
 
 void write_steps_table(const std::filesystem::path& path, const StudyResult& r, double frequency) {

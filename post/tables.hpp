@@ -21,6 +21,9 @@ void write_poles_table(const std::filesystem::path& path, const StudyResult& r);
 /// harmonics.csv: one row per step and space order n = 1 .. p*max_harmonic.
 void write_harmonics_table(const std::filesystem::path& path, const StudyResult& r, int pole_pairs);
 /// winding.csv: the slot table; winding_factors.csv: factors per electrical order.
+/// regions.csv: region id (as in the field files' "region" array), name and area [m²] of each region.
+void write_regions_table(const std::filesystem::path& path, const mesh::Mesh& m);
+
 void write_winding_tables(const std::filesystem::path& folder, const mesh::Winding& w, int max_order);
 
 }  // namespace tf::post

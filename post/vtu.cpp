@@ -1,5 +1,7 @@
 #include "post/vtu.hpp"
 
+#include <fmt/format.h>
+
 #include <vtkCellArray.h>
 #include <vtkCellData.h>
 #include <vtkDoubleArray.h>
@@ -107,7 +109,9 @@ void write_collection(const std::filesystem::path& path, const std::vector<Colle
   write_atomically(path, [&](std::ostream& out) {
     out << "<?xml version=\"1.0\"?>\n<VTKFile type=\"Collection\" version=\"0.1\">\n  <Collection>\n";
     for (const auto& e : entries)
-      out << "    <DataSet timestep=\"" << e.time << "\" part=\"0\" file=\"" << e.filename << "\"/>\n";
+      // 12 significant digits: the default 6 can print two close steps of a long study as the same time.
+      out << "    <DataSet timestep=\"" << fmt::format("{:.12g}", e.time) << "\" part=\"0\" file=\"" << e.filename
+          << "\"/>\n";
     out << "  </Collection>\n</VTKFile>\n";
   });
 }
@@ -127,12 +131,25 @@ vtkNew<vtkDoubleArray> node_array(const char* name, const Eigen::VectorXd& value
 
 }  // namespace
 
+Eigen::VectorXd peak_flux_density(const mesh::Mesh& m, const Eigen::VectorXcd& a) {
+  const Eigen::MatrixX2d b_re = flux_density(m, a.real()), b_im = flux_density(m, a.imag());
+  Eigen::VectorXd peak(m.n_triangles());
+  for (int t = 0; t < m.n_triangles(); ++t) {
+    // Peak over a period of |Re(B e^{j w t})|: the major semi-axis of the ellipse B traces.
+    const std::complex<double> bx(b_re(t, 0), b_im(t, 0)), by(b_re(t, 1), b_im(t, 1));
+    const double mean = 0.5 * (std::norm(bx) + std::norm(by)), swing = 0.5 * std::abs(bx * bx + by * by);
+    peak(t) = std::sqrt(mean + swing);
+  }
+  return peak;
+}
+
 void write_eddy_vtu(const std::filesystem::path& path, const mesh::Mesh& m, const Eigen::VectorXcd& a,
                     const SpeedInputs& in, double rotor_speed) {
   auto grid = grid_of(m);
   grid->GetPointData()->AddArray(node_array("A_z_real_Wb_per_m", a.real()));
   grid->GetPointData()->AddArray(node_array("A_z_imag_Wb_per_m", a.imag()));
   const Eigen::MatrixX2d b_re = flux_density(m, a.real()), b_im = flux_density(m, a.imag());
+  const Eigen::VectorXd peak = peak_flux_density(m, a);
   const double omega = 2 * 3.14159265358979323846 * in.frequency;
   vtkNew<vtkFloatArray> b_peak, j_peak;
   b_peak->SetName("B_peak_T");
@@ -140,10 +157,7 @@ void write_eddy_vtu(const std::filesystem::path& path, const mesh::Mesh& m, cons
   b_peak->SetNumberOfValues(m.n_triangles());
   j_peak->SetNumberOfValues(m.n_triangles());
   for (int t = 0; t < m.n_triangles(); ++t) {
-    // Peak over a period of |Re(B e^{j w t})|: the major semi-axis of the ellipse B traces.
-    const std::complex<double> bx(b_re(t, 0), b_im(t, 0)), by(b_re(t, 1), b_im(t, 1));
-    const double mean = 0.5 * (std::norm(bx) + std::norm(by)), swing = 0.5 * std::abs(bx * bx + by * by);
-    b_peak->SetValue(t, static_cast<float>(std::sqrt(mean + swing)));
+    b_peak->SetValue(t, static_cast<float>(peak(t)));
     // |J| = sigma |j w A + w_r dA/dtheta| at the centroid.
     const int r = m.triangle_region(t);
     double j = 0.0;

@@ -57,6 +57,16 @@ TEST_CASE("a missing case file and a bad command line are bad input too") {
   CHECK(turnfield("run " + demo + " --fineness 0").status == 2);
 }
 
+TEST_CASE("a report step beyond the study's steps is bad input: exit 2, a message, nothing written") {
+  const std::string demo = std::string(TF_SOURCE_DIR) + "/cases/pump24_three_phase.toml";  // 36 steps
+  const fs::path out = fresh_folder("report_step");
+  const Outcome run = turnfield("run " + demo + " --report-step 36 --out " + out.string());
+  CHECK(run.status == 2);
+  CHECK(run.output.find("--report-step 36") != std::string::npos);
+  CHECK(run.output.find("0 to 35") != std::string::npos);
+  CHECK_FALSE(fs::exists(out));
+}
+
 TEST_CASE("a runaway fineness is refused before meshing: exit 1, a message, nothing written") {
   const std::string demo = std::string(TF_SOURCE_DIR) + "/cases/pump24_three_phase.toml";
   const fs::path out = fresh_folder("runaway");
@@ -109,6 +119,13 @@ TEST_CASE("every case in cases/ runs headless on a coarse mesh and gives a sound
     REQUIRE(run.status == 0);
     CHECK(run.output.find("design estimates") != std::string::npos);
     const auto s = read_summary(out);
+    // Every study writes its report and the region names, and lists them (scripts/check_report renders one).
+    for (const char* file : {"report.html", "regions.csv"}) {
+      CHECK(fs::exists(out / file));
+      CHECK(std::find(s["files"].begin(), s["files"].end(), file) != s["files"].end());
+    }
+    CHECK(fs::exists(out / "figures"));
+    CHECK_FALSE(fs::is_empty(out / "figures"));
     if (turns) {
       CHECK(fs::exists(out / "torque.csv"));
       CHECK(s["field"]["fundamental_T"].get<double>() > 0.2);

@@ -1,0 +1,264 @@
+#include "post/case_report.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <numbers>
+#include <utility>
+
+#include <fmt/format.h>
+#include <nlohmann/json.hpp>
+
+#include "post/flux_density.hpp"
+#include "post/svg_plot.hpp"
+
+namespace tf::post {
+namespace {
+
+using nlohmann::json;
+constexpr double kDeg = 180.0 / std::numbers::pi;
+
+std::string num(double v, int digits = 4) { return svg::format_number(v, digits); }
+
+/// Unit of a key by its suffix, as case_json and our tables spell them.
+std::pair<std::string, std::string> split_unit(const std::string& key) {
+  static const std::pair<const char*, const char*> suffixes[] = {
+      {"_S_per_m", "S/m"}, {"_kg_per_m3", "kg/m³"}, {"_A_per_m", "A/m"}, {"_rad_s", "rad/s"}, {"_rpm", "rpm"},
+      {"_deg", "°"},       {"_Hz", "Hz"},           {"_m2", "m²"},       {"_ohm", "Ω"},       {"_slots", "slots"},
+      {"_m", "m"},         {"_T", "T"},             {"_H", "H"},         {"_A", "A"},         {"_V", "V"}};
+  for (const auto& [suffix, unit] : suffixes) {
+    const std::string s = suffix;
+    if (key.size() > s.size() && key.compare(key.size() - s.size(), s.size(), s) == 0)
+      return {key.substr(0, key.size() - s.size()), unit};
+  }
+  return {key, ""};
+}
+
+void flatten(const json& j, const std::string& prefix, std::vector<KeyValue>& rows) {
+  if (j.is_object()) {
+    for (const auto& [key, value] : j.items()) flatten(value, prefix.empty() ? key : prefix + "." + key, rows);
+    return;
+  }
+  const auto [key, unit] = split_unit(prefix);
+  std::string text;
+  if (j.is_number()) text = num(j.get<double>(), 6);
+  else if (j.is_string()) text = j.get<std::string>();
+  else if (j.is_array() && j.size() <= 12 && std::all_of(j.begin(), j.end(), [](const json& e) { return e.is_number(); }))
+    for (const auto& e : j) text += (text.empty() ? "" : ", ") + num(e.get<double>(), 6);
+  else text = j.dump();
+  rows.push_back({key, text, unit});
+}
+
+/// Unwrapped mechanical axis angle [deg] of the fundamental over the steps (continuous, no jumps of 360/p).
+std::vector<double> unwrapped_axis(const StudyResult& r, int p) {
+  std::vector<double> out;
+  const double turn = 360.0 / p;
+  for (const auto& s : r.steps) {
+    double a = s.axis * kDeg;
+    if (!out.empty()) a += turn * std::round((out.back() - a) / turn);
+    out.push_back(a);
+  }
+  return out;
+}
+
+Figure cross_section_figure(const CrossSection& s) {
+  svg::FieldMap map;
+  map.title = "Cross-section, |B| at " + s.when;
+  map.value = {"|B|", "T"};
+  if (s.mesh) map.nodes = &s.mesh->nodes, map.triangles = &s.mesh->triangles, map.values = s.b_magnitude;
+  return {"cross_section", "Flux density magnitude |B| per triangle at " + s.when +
+                               ", in " + std::to_string(svg::kColourBins) + " equal bins from its minimum to its maximum "
+                               "(the model as solved: a sector model shows its sector).",
+          svg::field_map(map)};
+}
+
+/// B_r against angle at up to four steps spread over the sequence.
+Figure waveform_figure(const StudyResult& r, const std::vector<double>& when, const svg::Axis& when_axis) {
+  svg::LineChart c{"Air-gap radial flux density B_r on the mid-gap circle", {"angle θ", "°"}, {"B_r", "T"}, {}, {}};
+  const std::size_t n = r.steps.size();
+  std::vector<std::size_t> picks;
+  for (std::size_t i = 0; i < std::min<std::size_t>(4, n); ++i) picks.push_back(i * n / std::min<std::size_t>(4, n));
+  for (std::size_t k : picks) {
+    svg::Series s{fmt::format("{} = {} {}", when_axis.label, num(when[k], 4), when_axis.unit), {}, {}};
+    for (std::size_t j = 0; j < r.sample_angles.size(); ++j) {
+      s.x.push_back(r.sample_angles[j] * kDeg);
+      s.y.push_back(r.steps[k].br(static_cast<Eigen::Index>(j)));
+    }
+    c.series.push_back(std::move(s));
+  }
+  return {"gap_field", "B_r on the mid-gap circle against the mechanical angle, at up to four steps spread over the "
+                       "study.",
+          svg::line_chart(c)};
+}
+
+Figure spectrum_figure(const StudyResult& r, int p) {
+  svg::StemChart c{"Space harmonics of B_r, mean amplitude over the steps",
+                   {"space order n (mechanical; fundamental n = " + std::to_string(p) + ")", ""}, {"|c_n|", "T"}, {}, {}};
+  const Eigen::Index n_orders = r.steps.empty() ? 0 : r.steps.front().harmonics.size();
+  for (Eigen::Index n = 1; n < n_orders; ++n) {
+    double sum = 0.0;
+    for (const auto& s : r.steps) sum += std::abs(s.harmonics(n));
+    c.order.push_back(static_cast<double>(n));
+    c.amplitude.push_back(sum / static_cast<double>(r.steps.size()));
+  }
+  return {"spectrum", "Amplitude |c_n| of each space harmonic of B_r (peak, mean over the steps); orders are "
+                      "mechanical, so the fundamental sits at the pole-pair number.",
+          svg::stem_chart(c)};
+}
+
+Figure locus_figure(const StudyResult& r) {
+  svg::LocusPlot c{"Locus of the fundamental phasor c_p over the steps", "T", {}};
+  for (const auto& s : r.steps) c.points.push_back(s.fundamental);
+  return {"locus", "The fundamental phasor c_p of B_r at each step, joined in order: a perfect rotating field traces "
+                   "the dashed circle of its mean radius; a pulsating field collapses to a line.",
+          svg::locus_plot(c)};
+}
+
+/// Amplitude and axis angle of the fundamental against the step variable: two charts.
+std::vector<Figure> fundamental_figures(const StudyResult& r, int p, const std::vector<double>& when,
+                                        const svg::Axis& when_axis) {
+  svg::LineChart amplitude{"Fundamental amplitude |c_p| over the steps", when_axis, {"|c_p|", "T"}, {}, {}};
+  svg::LineChart axis{"Field axis angle arg(c_p)/p over the steps", when_axis, {"axis angle", "°"}, {}, {}};
+  svg::Series a{"|c_p|", when, {}, false, true}, x{"axis angle (unwrapped)", when, unwrapped_axis(r, p), false, true};
+  for (const auto& s : r.steps) a.y.push_back(std::abs(s.fundamental));
+  amplitude.series.push_back(std::move(a));
+  amplitude.include_zero = true;
+  axis.series.push_back(std::move(x));
+  return {{"amplitude", "Amplitude of the fundamental at each step; a flat line means no amplitude ripple.",
+           svg::line_chart(amplitude)},
+          {"axis_angle", "Mechanical angle of the field axis at each step, unwrapped; a straight line means the "
+                         "field turns at a uniform rate.",
+           svg::line_chart(axis)}};
+}
+
+/// The gap-field figures of any study, against the step variable `when`.
+void add_gap_figures(Page& page, const ReportContext& x, const StudyResult& r, const std::vector<double>& when,
+                     const svg::Axis& when_axis) {
+  page.figures.push_back(cross_section_figure(x.section));
+  page.figures.push_back(waveform_figure(r, when, when_axis));
+  page.figures.push_back(spectrum_figure(r, x.pole_pairs));
+  page.figures.push_back(locus_figure(r));
+  for (auto& f : fundamental_figures(r, x.pole_pairs, when, when_axis)) page.figures.push_back(std::move(f));
+}
+
+std::vector<KeyValue> field_rows(const RotationMetrics& m, double winding_factor) {
+  std::vector<KeyValue> rows = {
+      {"air-gap B_r fundamental (mean over steps)", num(m.mean_fundamental), "T"},
+      {"amplitude ripple", num(100 * m.amplitude_ripple), "%"},
+      {"peak-field ripple", num(100 * m.peak_ripple), "%"},
+      {"peak |B_r| min – max", num(m.min_peak) + " – " + num(m.max_peak), "T"},
+      {"rotation uniformity (worst axis-step deviation)", num(m.rotation_uniformity_deg), "° mech."},
+      {"expected axis step", num(m.expected_step_deg), "° mech."},
+      {"backward/forward ratio", num(m.backward_forward_ratio), ""},
+      {"harmonic distortion (mean over steps)", num(100 * m.mean_distortion), "%"}};
+  if (std::isfinite(winding_factor)) rows.push_back({"winding factor (fundamental)", num(winding_factor), ""});
+  return rows;
+}
+
+Page base_page(const ReportContext& x, const std::string& what) {
+  Page page;
+  page.title = x.title;
+  page.subtitle = what + " · solved on " + x.model;
+  return page;
+}
+
+std::vector<double> step_angles(const StudyResult& r) {
+  std::vector<double> out;
+  for (const auto& s : r.steps) out.push_back(s.electrical_angle * kDeg);
+  return out;
+}
+
+}  // namespace
+
+Eigen::VectorXd flux_density_magnitude(const mesh::Mesh& m, const Eigen::VectorXd& a) {
+  return flux_density(m, a).rowwise().norm();
+}
+
+Section inputs_section(const std::string& inputs_json) {
+  Section s{"Inputs (the case as read)", {}, "Units as read from each key's name; SI otherwise."};
+  const json j = json::parse(inputs_json, nullptr, false);
+  if (j.is_discarded()) s.rows.push_back({"inputs", "not available", ""});
+  else flatten(j, "", s.rows);
+  return s;
+}
+
+Page phase_study_page(const ReportContext& x, const StudyResult& r) {
+  Page page = base_page(x, "Phase-angle study: the currents advance through one electrical period");
+  page.sections.push_back({"Headline numbers", field_rows(r.metrics, x.winding_factor),
+                           "Metrics of the fundamental phasor c_p of B_r on the mid-gap circle over the steps; "
+                           "ripples are (max − min)/mean; angles mechanical."});
+  add_gap_figures(page, x, r, step_angles(r), {"ωt", "° el."});
+  page.appendix.push_back(inputs_section(x.inputs_json));
+  return page;
+}
+
+Page motion_study_page(const ReportContext& x, const MotionResult& r) {
+  Page page = base_page(x, "Rotor-motion study (" + x.study + "): the rotor turns step by step");
+  std::vector<KeyValue> rows;
+  const auto torque_row = [&](const char* name, const TorqueStats& t) {
+    rows.push_back({std::string("torque, ") + name + ", mean", num(t.mean, 5), "N·m"});
+    rows.push_back({std::string("torque, ") + name + ", min – max", num(t.min, 5) + " – " + num(t.max, 5), "N·m"});
+  };
+  torque_row("Arkkio", r.arkkio);
+  rows.push_back({"torque ripple (Arkkio, peak-to-peak / |mean|)", std::isnan(r.arkkio.ripple) ? "–" : num(100 * r.arkkio.ripple), "%"});
+  torque_row("circle", r.circle);
+  rows.push_back({"cogging period expected (360°/LCM(Q, 2p))", num(r.cogging_period_expected * kDeg), "° mech."});
+  rows.push_back({"cogging period in the Arkkio torque", num(r.cogging_period_measured * kDeg), "° mech."});
+  rows.push_back({"Newton iterations per solve", num(r.mean_newton_iterations, 3), ""});
+  for (auto& row : field_rows(r.gap.metrics, x.winding_factor)) rows.push_back(std::move(row));
+  page.sections.push_back({"Headline numbers", rows,
+                           "Torque over the stack length, counter-clockwise positive. Arkkio: Maxwell stress "
+                           "averaged over the gap band (main value); circle: on the mid-gap circle; virtual work: "
+                           "co-energy difference of neighbouring rotor positions."});
+  std::vector<double> angle;
+  svg::Series arkkio{"Arkkio", {}, {}}, circle{"circle", {}, {}, true}, work{"virtual work", {}, {}, false, true};
+  for (const auto& s : r.steps) {
+    angle.push_back(s.rotor_angle * kDeg);
+    arkkio.y.push_back(s.torque_arkkio), circle.y.push_back(s.torque_circle), work.y.push_back(s.torque_virtual_work);
+  }
+  arkkio.x = circle.x = work.x = angle;
+  // Arkkio's (the main value) drawn last, on top of the cross-checks that often coincide with it.
+  svg::LineChart torque{"Torque against rotor angle", {"rotor angle", "° mech."}, {"torque", "N·m"}, {circle}, {}};
+  if (std::any_of(work.y.begin(), work.y.end(), [](double v) { return std::isfinite(v); })) torque.series.push_back(work);
+  torque.series.push_back(arkkio);
+  page.figures.push_back({"torque", "Torque on the rotor at each position by three methods.", svg::line_chart(torque)});
+  add_gap_figures(page, x, r.gap, angle, {"rotor angle", "° mech."});
+  page.appendix.push_back(inputs_section(x.inputs_json));
+  return page;
+}
+
+Page eddy_study_page(const ReportContext& x, const std::vector<SpeedResult>& rows) {
+  Page page = base_page(x, "Eddy-current study: one time-harmonic solution per rotor speed");
+  svg::Series t{"Arkkio", {}, {}, false, true}, tl{"cross-check", {}, {}, true, true};
+  svg::Series l{"integrated", {}, {}, false, true}, lb{"power balance", {}, {}, true, true};
+  Table table{"Per speed", {"speed [rad/s]", "slip", "torque Arkkio [N·m]", "torque cross-check [N·m]",
+                            "rotor loss [W]", "rotor loss, balance [W]", "input power [W]"}, {}, ""};
+  std::size_t best = 0;
+  for (std::size_t k = 0; k < rows.size(); ++k) {
+    const SpeedResult& s = rows[k];
+    for (auto* series : {&t, &tl, &l, &lb}) series->x.push_back(s.rotor_speed);
+    t.y.push_back(s.torque), tl.y.push_back(s.torque_lorentz);
+    l.y.push_back(s.rotor_loss), lb.y.push_back(s.rotor_loss_balance);
+    table.rows.push_back({num(s.rotor_speed, 6), num(s.slip, 5), num(s.torque, 5), num(s.torque_lorentz, 5),
+                          num(s.rotor_loss, 5), num(s.rotor_loss_balance, 5), num(s.input_power, 5)});
+    if (std::abs(s.torque) > std::abs(rows[best].torque)) best = k;
+  }
+  std::vector<KeyValue> head{{"rotor speeds", std::to_string(rows.size()), ""}};
+  if (!rows.empty()) {
+    head.push_back({"largest |torque| (Arkkio)", num(rows[best].torque, 5), "N·m"});
+    head.push_back({"at speed", num(rows[best].rotor_speed, 6), "rad/s"});
+    head.push_back({"at slip", num(rows[best].slip, 4), ""});
+  }
+  page.sections.push_back({"Headline numbers", head, "Time averages over a period of the peak phasors; torque over the "
+                                                     "stack length, counter-clockwise positive."});
+  page.tables.push_back(std::move(table));
+  page.figures.push_back({"torque_speed", "Time-averaged torque against rotor speed: Arkkio's method and its cross-check.",
+                          svg::line_chart({"Torque against rotor speed", {"rotor speed", "rad/s"}, {"torque", "N·m"}, {t, tl}, {}})});
+  page.figures.push_back({"rotor_loss", "Rotor loss against rotor speed: integrated from the induced currents, and "
+                                        "from the power balance (input − stator loss − mechanical power).",
+                          svg::line_chart({"Rotor loss against rotor speed", {"rotor speed", "rad/s"}, {"rotor loss", "W"}, {l, lb}, {}})});
+  if (x.section.mesh) page.figures.push_back(cross_section_figure(x.section));
+  page.appendix.push_back(inputs_section(x.inputs_json));
+  return page;
+}
+
+}  // namespace tf::post

@@ -1,0 +1,54 @@
+#pragma once
+// The report page of one case run (report.html): the inputs, the headline numbers with units and
+// the figures of its study. Each builder turns results into a post::Page; write_report writes it.
+
+#include <string>
+#include <vector>
+
+#include <Eigen/Core>
+
+#include "mesh/mesh.hpp"
+#include "post/eddy_quantities.hpp"
+#include "post/html_report.hpp"
+#include "post/motion_result.hpp"
+#include "post/study.hpp"
+
+namespace tf::post {
+
+/// The cross-section drawn in the report: a mesh as it stands (rotor turned where it stood) and
+/// |B| [T] per triangle of it. Without a mesh the figure says "no data".
+struct CrossSection {
+  const mesh::Mesh* mesh = nullptr;
+  Eigen::VectorXd b_magnitude;  ///< #triangles [T]
+  std::string when;             ///< e.g. "step 0 (ωt = 0°)"
+};
+
+/// What every case report shows besides its study's results.
+struct ReportContext {
+  std::string title;
+  std::string study;        ///< study kind as case files spell it
+  std::string model;        ///< which model was solved (whole cross-section or a sector)
+  std::string inputs_json;  ///< the case as read, a JSON object
+  int pole_pairs = 1;
+  double winding_factor = 0.0;  ///< fundamental; NaN when not defined
+  CrossSection section;
+};
+
+/// |B| [T] per triangle of nodal A_z [Wb/m].
+Eigen::VectorXd flux_density_magnitude(const mesh::Mesh& m, const Eigen::VectorXd& a);
+
+/// Phase-angle study: headline field metrics, cross-section, B_r waveforms, space spectrum,
+/// locus of the fundamental, amplitude and axis angle over the period.
+Page phase_study_page(const ReportContext& x, const StudyResult& r);
+
+/// Rotor-motion study: the gap-field figures over the rotor angle plus torque by three methods.
+Page motion_study_page(const ReportContext& x, const MotionResult& r);
+
+/// Eddy-current study: torque and rotor loss against speed, a table per speed.
+Page eddy_study_page(const ReportContext& x, const std::vector<SpeedResult>& rows);
+
+/// The inputs echoed as rows "section.key = value" with the unit read from the key's suffix
+/// ("frequency_Hz" -> Hz); an invalid document gives one row saying so.
+Section inputs_section(const std::string& inputs_json);
+
+}  // namespace tf::post

@@ -1,0 +1,186 @@
+#include "post/svg_plot.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <numbers>
+
+#include <fmt/format.h>
+
+#include "post/svg_frame.hpp"
+
+namespace tf::post::svg {
+
+std::string escape(const std::string& text) {
+  std::string out;
+  out.reserve(text.size());
+  for (char ch : text) switch (ch) {
+      case '&': out += "&amp;"; break;
+      case '<': out += "&lt;"; break;
+      case '>': out += "&gt;"; break;
+      case '"': out += "&quot;"; break;
+      case '\'': out += "&#39;"; break;
+      default: out += ch;
+    }
+  return out;
+}
+
+std::string format_number(double v, int digits) {
+  if (!std::isfinite(v)) return "–";
+  if (v == 0.0) return "0";  // also turns -0 into 0
+  // Whole numbers below ten million keep all their digits: "1250", not "1.25e+03".
+  if (std::abs(v) >= 1.0 && std::abs(v) < 1e7) digits = std::max(digits, static_cast<int>(std::log10(std::abs(v))) + 1);
+  return fmt::format("{:.{}g}", v, digits);
+}
+
+std::vector<double> nice_ticks(double lo, double hi, int target) {
+  if (!std::isfinite(lo) || !std::isfinite(hi)) return {0.0, 1.0};
+  if (hi < lo) std::swap(lo, hi);
+  // A flat line (to round-off of its size) still gets an axis around it, not ticks that all read the same.
+  if (hi - lo <= 1e-9 * std::max(std::abs(lo), std::abs(hi))) {
+    lo = hi = 0.5 * (lo + hi);
+    const double pad = lo == 0.0 ? 1.0 : 0.1 * std::abs(lo);
+    lo -= pad, hi += pad;
+  }
+  const double raw = (hi - lo) / std::max(1, target);
+  const double magnitude = std::pow(10.0, std::floor(std::log10(raw)));
+  const double f = raw / magnitude;
+  const double step = magnitude * (f <= 1.0 ? 1.0 : f <= 2.0 ? 2.0 : f <= 2.5 ? 2.5 : f <= 5.0 ? 5.0 : 10.0);
+  // A hair of slack so that lo = 0.3 does not start a tick below because 0.3/0.1 = 2.9999999999999996.
+  const long first = static_cast<long>(std::floor(lo / step + 1e-9));
+  const long last = static_cast<long>(std::ceil(hi / step - 1e-9));
+  std::vector<double> ticks;
+  for (long i = first; i <= last; ++i) ticks.push_back(i == 0 ? 0.0 : static_cast<double>(i) * step);
+  return ticks;
+}
+
+namespace {
+
+/// Finite extremes of several sequences; NaN when there is none.
+std::pair<double, double> finite_range(const std::vector<const std::vector<double>*>& all) {
+  double lo = std::numeric_limits<double>::infinity(), hi = -lo;
+  for (const auto* v : all)
+    for (double x : *v)
+      if (std::isfinite(x)) lo = std::min(lo, x), hi = std::max(hi, x);
+  if (lo > hi) return {std::nan(""), std::nan("")};
+  return {lo, hi};
+}
+
+/// "M x y L x y …" through the finite points; a NaN starts a new piece.
+std::string polyline_path(const Frame& f, const std::vector<double>& x, const std::vector<double>& y) {
+  std::string d;
+  bool pen_down = false;
+  for (std::size_t i = 0; i < x.size() && i < y.size(); ++i) {
+    if (!std::isfinite(x[i]) || !std::isfinite(y[i])) {
+      pen_down = false;
+      continue;
+    }
+    d += fmt::format("{}{:.1f} {:.1f}", pen_down ? "L" : "M", f.px(x[i]), f.py(y[i]));
+    pen_down = true;
+  }
+  return d;
+}
+
+}  // namespace
+
+std::string line_chart(const LineChart& c) {
+  std::vector<const std::vector<double>*> xs, ys;
+  for (const auto& s : c.series) xs.push_back(&s.x), ys.push_back(&s.y);
+  auto [x_lo, x_hi] = finite_range(xs);
+  const auto [y_lo, y_hi] = finite_range(ys);
+  const bool empty = std::isnan(x_lo) || std::isnan(y_lo);
+  std::vector<double> x_ticks = empty ? nice_ticks(0, 1) : nice_ticks(x_lo, x_hi);
+  if (!c.categories.empty()) {  // categories sit half a step inside the frame
+    x_ticks.clear();
+    for (std::size_t i = 0; i < c.categories.size(); ++i) x_ticks.push_back(static_cast<double>(i));
+  }
+  const std::vector<double> y_ticks = empty            ? nice_ticks(0, 1)
+                                     : c.include_zero ? nice_ticks(std::min(0.0, y_lo), std::max(0.0, y_hi))
+                                                      : nice_ticks(y_lo, y_hi);
+  Frame f = Frame::around(x_ticks, y_ticks);
+  if (!c.categories.empty()) f.x_lo -= 0.5, f.x_hi += 0.5;
+  std::string out = open_chart(c.title, kWidth, kHeight);
+  out += draw_axes(f, x_ticks, y_ticks, c.x.text(), c.y.text(), c.categories);
+  std::vector<LegendEntry> legend;
+  for (std::size_t k = 0; k < c.series.size(); ++k) {
+    const Series& s = c.series[k];
+    const std::string colour = series_colour(static_cast<int>(k));
+    const std::string d = polyline_path(f, s.x, s.y);
+    if (!d.empty())
+      out += fmt::format("<path class=\"data\" d=\"{}\" fill=\"none\" stroke=\"{}\" stroke-width=\"1.8\"{}/>\n", d,
+                         colour, s.dashed ? " stroke-dasharray=\"6 4\"" : "");
+    if (s.markers)
+      for (std::size_t i = 0; i < s.x.size() && i < s.y.size(); ++i)
+        if (std::isfinite(s.x[i]) && std::isfinite(s.y[i]))
+          out += fmt::format("<circle cx=\"{:.1f}\" cy=\"{:.1f}\" r=\"3\" fill=\"{}\"/>\n", f.px(s.x[i]), f.py(s.y[i]),
+                             colour);
+    legend.push_back({s.name, colour, s.dashed});
+  }
+  if (empty) out += no_data_note(f);
+  out += draw_legend(legend);
+  return out + "</svg>\n";
+}
+
+std::string stem_chart(const StemChart& c) {
+  const auto [x_lo, x_hi] = finite_range({&c.order});
+  const auto [y_lo, y_hi] = finite_range({&c.amplitude});
+  const bool empty = std::isnan(x_lo) || std::isnan(y_lo);
+  const std::vector<double> x_ticks = empty ? nice_ticks(0, 1) : nice_ticks(x_lo - 0.5, x_hi + 0.5, 10);
+  const std::vector<double> y_ticks = empty ? nice_ticks(0, 1) : nice_ticks(std::min(0.0, y_lo), std::max(0.0, y_hi));
+  const Frame f = Frame::around(x_ticks, y_ticks);
+  std::string out = open_chart(c.title, kWidth, kHeight);
+  out += draw_axes(f, x_ticks, y_ticks, c.x.text(), c.y.text(), {});
+  // Bars 60 % of the narrowest spacing between orders wide, at least a hairline.
+  double spacing = x_hi - x_lo;
+  for (std::size_t i = 1; i < c.order.size(); ++i) spacing = std::min(spacing, std::abs(c.order[i] - c.order[i - 1]));
+  const double width = std::max(1.0, 0.6 * (spacing > 0 ? spacing : 1.0) * (f.right - f.left) / (f.x_hi - f.x_lo));
+  for (std::size_t i = 0; i < c.order.size() && i < c.amplitude.size(); ++i) {
+    if (!std::isfinite(c.amplitude[i])) continue;
+    const double top = std::min(f.py(c.amplitude[i]), f.py(0.0)), bottom = std::max(f.py(c.amplitude[i]), f.py(0.0));
+    out += fmt::format(
+        "<rect class=\"data\" x=\"{:.1f}\" y=\"{:.1f}\" width=\"{:.1f}\" height=\"{:.1f}\" fill=\"{}\">"
+        "<title>{}: {}</title></rect>\n",
+        f.px(c.order[i]) - width / 2, top, width, std::max(0.5, bottom - top), series_colour(0),
+        format_number(c.order[i]), format_number(c.amplitude[i]));
+  }
+  if (empty) out += no_data_note(f);
+  return out + "</svg>\n";
+}
+
+std::string locus_plot(const LocusPlot& c) {
+  double radius = 0.0, mean = 0.0;
+  for (const auto& z : c.points) radius = std::max(radius, std::abs(z)), mean += std::abs(z);
+  const bool empty = c.points.empty();
+  if (!empty) mean /= static_cast<double>(c.points.size());
+  const double reach = radius > 0.0 ? radius : 1.0;
+  const std::vector<double> ticks = nice_ticks(-reach, reach, 4);
+  // Equal scales: a square plot area on the same ticks for both axes.
+  Frame f = Frame::around(ticks, ticks);
+  f.right = f.left + (f.bottom - f.top);
+  std::string out = open_chart(c.title, kWidth, kHeight);
+  out += draw_axes(f, ticks, ticks, "Re [" + c.unit + "]", "Im [" + c.unit + "]", {});
+  std::vector<LegendEntry> legend;
+  if (!empty) {
+    const double r_px = mean * (f.right - f.left) / (f.x_hi - f.x_lo);
+    out += fmt::format(
+        "<circle class=\"reference\" cx=\"{:.1f}\" cy=\"{:.1f}\" r=\"{:.1f}\" fill=\"none\" stroke=\"#888\" "
+        "stroke-dasharray=\"5 4\"/>\n",
+        f.px(0), f.py(0), r_px);
+    std::vector<double> x, y;
+    for (const auto& z : c.points) x.push_back(z.real()), y.push_back(z.imag());
+    std::string d = polyline_path(f, x, y);
+    out += fmt::format("<path class=\"data\" d=\"{}Z\" fill=\"none\" stroke=\"{}\" stroke-width=\"1.8\"/>\n", d,
+                       series_colour(0));
+    out += fmt::format("<circle cx=\"{:.1f}\" cy=\"{:.1f}\" r=\"4\" fill=\"{}\"><title>first step</title></circle>\n",
+                       f.px(x[0]), f.py(y[0]), series_colour(1));
+    legend = {{"locus over the period", series_colour(0), false},
+              {"first step", series_colour(1), false},
+              {"mean radius " + format_number(mean) + " " + c.unit, "#888", true}};
+  } else {
+    out += no_data_note(f);
+  }
+  out += draw_legend(legend);
+  return out + "</svg>\n";
+}
+
+}  // namespace tf::post::svg

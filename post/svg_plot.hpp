@@ -1,0 +1,87 @@
+#pragma once
+// Small SVG charts for the reports, each returned as a self-contained <svg> element (no scripts,
+// no external fonts). Elements that carry data have class="data" so a checker can find them.
+// Pixel coordinates: x to the right, y downwards, origin at the top left of the chart.
+
+#include <complex>
+#include <string>
+#include <vector>
+
+#include <Eigen/Core>
+
+namespace tf::post::svg {
+
+/// Chart size [px] and the plot area inside it; the legend sits right of the plot area.
+inline constexpr double kWidth = 760, kHeight = 400;
+inline constexpr double kPlotLeft = 78, kPlotRight = 560, kPlotTop = 40, kPlotBottom = 340;
+
+struct Axis {
+  std::string label;  ///< e.g. "B_r"
+  std::string unit;   ///< e.g. "T"; empty for pure numbers
+  std::string text() const { return unit.empty() ? label : label + " [" + unit + "]"; }
+};
+
+struct Series {
+  std::string name;
+  std::vector<double> x, y;  ///< same length; NaN values break the line
+  bool dashed = false;
+  bool markers = false;      ///< a dot at each point (for few points)
+};
+
+/// Several named series against one x axis. With categories set, x values are category indices
+/// 0 .. n-1 and the x ticks show the names.
+struct LineChart {
+  std::string title;
+  Axis x, y;
+  std::vector<Series> series;
+  std::vector<std::string> categories;
+  bool include_zero = false;  ///< y axis reaches down (or up) to 0, so small changes look small
+};
+std::string line_chart(const LineChart& c);
+
+/// Amplitude against order, one stem (a thin bar) per order.
+struct StemChart {
+  std::string title;
+  Axis x, y;
+  std::vector<double> order, amplitude;
+};
+std::string stem_chart(const StemChart& c);
+
+/// A closed path in the complex plane with equal scales on both axes, and the dashed circle of
+/// the mean radius |z| for reference (a perfect rotating phasor lies on it).
+struct LocusPlot {
+  std::string title;
+  std::string unit;  ///< of Re and Im
+  std::vector<std::complex<double>> points;
+};
+std::string locus_plot(const LocusPlot& c);
+
+/// Mesh triangles coloured by one value each, with a colour bar. Triangles are grouped into
+/// kColourBins bins of equal width over [min, max] and drawn as one <path> per bin.
+struct FieldMap {
+  std::string title;
+  Axis value;                    ///< e.g. {"|B|", "T"}
+  const Eigen::MatrixX2d* nodes = nullptr;      ///< #nodes by 2 [m]
+  const Eigen::MatrixX3i* triangles = nullptr;  ///< #triangles by 3
+  Eigen::VectorXd values;                       ///< #triangles
+};
+std::string field_map(const FieldMap& c);
+inline constexpr int kColourBins = 32;
+
+/// "Nice" tick values (1, 2, 2.5 or 5 times a power of ten) covering [lo, hi] with about `target`
+/// intervals; the first tick is <= lo and the last >= hi.
+std::vector<double> nice_ticks(double lo, double hi, int target = 5);
+
+/// Bin index 0 .. n_bins-1 of value v over [lo, hi] (values outside are clamped; lo == hi: bin 0).
+int colour_bin(double v, double lo, double hi, int n_bins);
+
+/// Colour of bin k of n as "#rrggbb": dark blue (low) through teal and green to yellow (high).
+std::string bin_colour(int k, int n_bins);
+
+/// Text escaped for XML and HTML element content and attribute values.
+std::string escape(const std::string& text);
+
+/// A number with `digits` significant digits, without trailing zeros ("0.25", "1e-05").
+std::string format_number(double v, int digits = 4);
+
+}  // namespace tf::post::svg
