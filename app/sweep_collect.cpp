@@ -11,6 +11,7 @@
 #include "app/sweep_records.hpp"
 #include "post/atomic_file.hpp"
 #include "post/summary.hpp"
+#include "post/sweep_report.hpp"
 
 namespace tf::app {
 namespace {
@@ -146,9 +147,15 @@ int collect_sweep(const CollectOptions& o, std::ostream& out) {
   if (!out_is_a_shard) write_manifest(o.out_dir, read_manifest(o.dirs.front()));  // so it can be collected again
   write_sweep_csv(o.out_dir / "sweep_summary.csv", t);
   if (best) copy_best(o.out_dir, o.out_dir / best->variant);
+  post::write_sweep_report(o.out_dir, t,
+                           best ? fmt::format("The best variant by {}, {}, is copied whole to best_variant/: its "
+                                              "report.html, and field.pvd to open in any VTK viewer.",
+                                              t.metrics[static_cast<std::size_t>(t.rank_by)].key, best->variant)
+                                : "No variant could be ranked, so none is copied.");
   print_ranking(out, t);
-  out << fmt::format("sweep: {} variants: {} ok, {} failed or invalid or missing; summary in {}{}\n", t.rows.size(), ok,
-                     t.rows.size() - ok, (o.out_dir / "sweep_summary.csv").string(),
+  out << fmt::format("sweep: {} variants: {} ok, {} failed or invalid or missing; summary in {} and {}{}\n",
+                     t.rows.size(), ok, t.rows.size() - ok, (o.out_dir / "sweep_summary.csv").string(),
+                     (o.out_dir / "report.html").string(),
                      best ? fmt::format(", best variant copied to {}", (o.out_dir / "best_variant").string()) : "");
   out << post::kSafetyCaution << '\n';
   return ok == t.rows.size() ? 0 : 1;

@@ -22,6 +22,7 @@ table{border-collapse:collapse;font-size:13px;margin:4px 0 8px}
 th,td{border:1px solid #d8dbe0;padding:4px 8px;text-align:left;vertical-align:top}
 th{background:#eef1f5} td.num{text-align:right;font-variant-numeric:tabular-nums}
 .note{color:#555;font-size:13px;max-width:900px}
+.scroll{overflow-x:auto;max-width:100%}
 figure{margin:16px 0 24px} figcaption{font-size:13px;color:#444;margin-top:4px;max-width:900px}
 figure svg{max-width:100%;height:auto;border:1px solid #e4e4e4}
 )";
@@ -45,7 +46,8 @@ std::string render_section(const Section& s) {
 }
 
 std::string render_table(const Table& t) {
-  std::string out = fmt::format("<section>\n<h2>{}</h2>\n<table>\n<tr>", html_escape(t.heading));
+  // A wide table (a sweep with many metrics) scrolls sideways inside the page instead of spilling out.
+  std::string out = fmt::format("<section>\n<h2>{}</h2>\n<div class=\"scroll\"><table>\n<tr>", html_escape(t.heading));
   for (const auto& c : t.columns) out += "<th>" + html_escape(c) + "</th>";
   out += "</tr>\n";
   for (const auto& row : t.rows) {
@@ -57,7 +59,7 @@ std::string render_table(const Table& t) {
     }
     out += "</tr>\n";
   }
-  out += "</table>\n";
+  out += "</table></div>\n";
   if (!t.note.empty()) out += fmt::format("<p class=\"note\">{}</p>\n", html_escape(t.note));
   return out + "</section>\n";
 }

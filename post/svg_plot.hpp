@@ -12,7 +12,7 @@
 namespace tf::post::svg {
 
 /// Chart size [px] and the plot area inside it; the legend sits right of the plot area.
-inline constexpr double kWidth = 760, kHeight = 400;
+inline constexpr double kWidth = 860, kHeight = 400;  // room right of the plot for legends of ~40 characters
 inline constexpr double kPlotLeft = 78, kPlotRight = 560, kPlotTop = 40, kPlotBottom = 340;
 
 struct Axis {

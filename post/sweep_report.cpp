@@ -6,6 +6,9 @@
 #include <cstdlib>
 #include <map>
 
+#include <fmt/format.h>
+#include <fmt/ranges.h>
+
 #include "post/svg_plot.hpp"
 
 namespace tf::post {
@@ -33,6 +36,9 @@ const std::string& input_of(const SweepRow& r, std::size_t i) {
   return i < r.inputs.size() ? r.inputs[i] : none;
 }
 
+/// "stator.slot.opening" -> "opening": series names must fit the legend beside the chart.
+std::string short_key(const std::string& key) { return key.substr(key.rfind('.') + 1); }
+
 std::string metric_heading(const MetricColumn& m) { return m.unit.empty() ? m.label : m.label + " [" + m.unit + "]"; }
 
 /// Rows in report order: by rank, then the unranked in the study's order.
@@ -49,17 +55,26 @@ std::vector<const SweepRow*> report_order(const SweepTable& t) {
 Table ranked_table(const SweepTable& t) {
   Table table{"Variants", {"rank", "variant"}, {}, "Each variant links to its own report. Failed variants show why."};
   for (const auto& p : t.parameters) table.columns.push_back(p);
-  table.columns.insert(table.columns.end(), {"status", "message"});
+  table.columns.push_back("status");
   for (const auto& m : t.metrics) table.columns.push_back(metric_heading(m));
+  table.columns.push_back("message");
   for (const SweepRow* r : report_order(t)) {
     std::vector<Cell> row{r->rank > 0 ? std::to_string(r->rank) : "–", Cell(r->variant, r->variant + "/report.html")};
     for (std::size_t i = 0; i < t.parameters.size(); ++i) row.emplace_back(input_of(*r, i));
     row.emplace_back(r->status);
-    row.emplace_back(r->message);
     for (std::size_t k = 0; k < t.metrics.size(); ++k) row.emplace_back(k < r->metrics.size() ? num(r->metrics[k]) : "–");
+    row.emplace_back(r->message);
     table.rows.push_back(std::move(row));
   }
   return table;
+}
+
+/// Whether metric k is zero to round-off in every variant (a balanced supply's amplitude ripple,
+/// backward wave and rotation deviation): a plot of it would only show numerical noise.
+bool at_round_off(const SweepTable& t, std::size_t k) {
+  return std::all_of(t.rows.begin(), t.rows.end(), [k](const SweepRow& r) {
+    return k >= r.metrics.size() || !std::isfinite(r.metrics[k]) || std::abs(r.metrics[k]) < 1e-9;
+  });
 }
 
 /// Metric k against parameter i: one series per combination of the other parameters' values.
@@ -77,7 +92,7 @@ Figure metric_figure(const SweepTable& t, std::size_t k, std::size_t i) {
   for (const auto& r : t.rows) {
     std::string others;
     for (std::size_t j = 0; j < t.parameters.size(); ++j)
-      if (j != i) others += (others.empty() ? "" : ", ") + t.parameters[j] + " = " + input_of(r, j);
+      if (j != i) others += (others.empty() ? "" : ", ") + short_key(t.parameters[j]) + "=" + input_of(r, j);
     const double x = numeric ? as_number(input_of(r, i))
                              : static_cast<double>(std::find(categories.begin(), categories.end(), input_of(r, i)) -
                                                    categories.begin());
@@ -86,7 +101,8 @@ Figure metric_figure(const SweepTable& t, std::size_t k, std::size_t i) {
   svg::LineChart c{m.label + " against " + param, {param, ""}, {m.label, m.unit}, {}, numeric ? std::vector<std::string>{} : categories};
   for (auto& [name, points] : groups) {
     std::stable_sort(points.begin(), points.end());
-    svg::Series s{name.empty() ? m.label : name, {}, {}, false, true};
+    // The palette has eight colours; further series are dashed so that none looks like another.
+    svg::Series s{name.empty() ? m.label : name, {}, {}, c.series.size() >= 8, true};
     for (const auto& [x, y] : points) s.x.push_back(x), s.y.push_back(y);
     c.series.push_back(std::move(s));
   }
@@ -116,12 +132,20 @@ Page sweep_page(const SweepTable& t, const std::string& best_variant_note) {
   }
   page.sections.push_back(std::move(study));
   page.tables.push_back(ranked_table(t));
+  std::vector<std::string> round_off;
   for (std::size_t k = 0; k < t.metrics.size(); ++k) {
     const bool any = std::any_of(t.rows.begin(), t.rows.end(),
                                  [k](const SweepRow& r) { return k < r.metrics.size() && std::isfinite(r.metrics[k]); });
     if (!any) continue;
+    if (at_round_off(t, k)) {
+      round_off.push_back(t.metrics[k].label);
+      continue;
+    }
     for (std::size_t i = 0; i < t.parameters.size(); ++i) page.figures.push_back(metric_figure(t, k, i));
   }
+  if (!round_off.empty())
+    page.tables.front().note += " Not plotted, as every variant has them at round-off level (below 1e-9): " +
+                                fmt::format("{}", fmt::join(round_off, ", ")) + ".";
   return page;
 }
 
