@@ -98,6 +98,13 @@ Figure metric_figure(const SweepTable& t, std::size_t k, std::size_t i) {
                                                    categories.begin());
     groups[others].push_back({x, k < r.metrics.size() ? r.metrics[k] : kNoValue});
   }
+  // Zipped keys vary together, so no two variants share the other keys' values: one series then.
+  const bool lone = std::all_of(groups.begin(), groups.end(), [](const auto& g) { return g.second.size() == 1; });
+  if (lone && groups.size() > 1) {
+    std::vector<std::pair<double, double>> all;
+    for (const auto& g : groups) all.push_back(g.second.front());
+    groups = {{"", all}};
+  }
   svg::LineChart c{m.label + " against " + param, {param, ""}, {m.label, m.unit}, {}, numeric ? std::vector<std::string>{} : categories};
   for (auto& [name, points] : groups) {
     std::stable_sort(points.begin(), points.end());
@@ -108,7 +115,7 @@ Figure metric_figure(const SweepTable& t, std::size_t k, std::size_t i) {
   }
   return {file_stem(m.key + "_vs_" + param),
           metric_heading(m) + " of each variant that ran against " + param +
-              (t.parameters.size() > 1 ? ", one series per value of the other varied inputs" : "") +
+              (t.parameters.size() > 1 && !lone ? ", one series per value of the other varied inputs" : "") +
               (m.lower_is_better ? " (lower is better)." : " (higher is better)."),
           svg::line_chart(c)};
 }

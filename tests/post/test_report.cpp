@@ -197,6 +197,23 @@ TEST_CASE("inputs are echoed with the unit their key's name carries") {
   CHECK(s.rows[2].value == "balanced");
 }
 
+TEST_CASE("a zipped sweep draws each metric as one curve through every variant, not lone points") {
+  post::SweepTable t;
+  t.parameters = {"winding.coil_pitch", "stator.slot.opening"};  // varied together (zip)
+  t.metrics = {{"fundamental_T", "B_r fundamental", "T", false}};
+  t.rows = {{"v1", {"4", "0.002"}, "ok", "", {0.60}, 3},
+            {"v2", {"5", "0.003"}, "ok", "", {0.66}, 1},
+            {"v3", {"6", "0.004"}, "ok", "", {0.64}, 2}};
+  t.rank_by = 0;
+  const post::Page page = post::sweep_page(t, "");
+  REQUIRE(page.figures.size() == 2);
+  for (const auto& f : page.figures) {
+    const auto paths = data_paths(f.svg);
+    REQUIRE(paths.size() == 1);
+    CHECK(paths[0].size() == 3);
+  }
+}
+
 TEST_CASE("a sweep's report: ranked table with links, failed rows with their message, a figure per metric and input") {
   post::SweepTable t;
   t.title = "Slot opening study";

@@ -13,4 +13,5 @@ ok=$(grep -c ',ok,' "$summary")
 invalid=$(grep -c ',invalid,' "$summary")
 for i in 1 2 3; do grep -q "shard $i/3 finished" "$out/slurm_logs/shard_$i.log" || { echo "FAIL: shard $i did not run"; exit 1; }; done
 [[ $ok == 5 && $invalid == 1 ]] || { echo "FAIL: $ok ok and $invalid invalid rows, expected 5 and 1"; cat "$summary"; exit 1; }
+bash "$source_dir/scripts/check_report" "$out/report.html"
 echo "slurm_sweep: 3 shards and collect gave 5 ok rows and 1 invalid row"
