@@ -1,12 +1,8 @@
 #include "app/case_reader.hpp"
 
 #include <algorithm>
-#include <cerrno>
-#include <cstring>
 #include <filesystem>
-#include <fstream>
 #include <numbers>
-#include <sstream>
 
 #include <fmt/format.h>
 
@@ -24,16 +20,6 @@ namespace {
 // Generous sanity limits: they catch unit slips (mm typed as m), not unusual machines.
 constexpr RealRange radius{.min = 0, .max = 5, .min_excluded = true, .unit = "m"};
 constexpr RealRange slot_size{.min = 0, .max = 1, .min_excluded = true, .unit = "m"};
-
-Document parse(const std::string& path, const std::string& text) {
-  try {
-    return Document{path, toml::parse(text, std::string_view(path))};
-  } catch (const toml::parse_error& e) {
-    const auto& at = e.source().begin;
-    throw InputError(fmt::format("{}:{}: not valid TOML (column {}): {}", path, std::max<int>(1, at.line),
-                                 at.column, e.description()));
-  }
-}
 
 mesh::Slot read_slot(const Fields& stator) {
   const Fields f = stator.table("slot", {"shape", "width", "depth", "opening", "tip_height", "wedge_height"});
@@ -230,22 +216,10 @@ Case read_fields(const Document& doc) {
 
 }  // namespace
 
-std::string read_case_file(const std::string& path) {
-  namespace fs = std::filesystem;
-  if (path.empty()) throw InputError("no case file given");
-  std::error_code ec;
-  if (fs::is_directory(path, ec)) throw InputError(fmt::format("{}: is a folder, not a case file", path));
-  std::ifstream in(path, std::ios::binary);
-  if (!in) throw InputError(fmt::format("{}: cannot read the case file: {}", path, std::strerror(errno)));
-  std::ostringstream text;
-  text << in.rdbuf();
-  return text.str();
-}
-
-Case read_case(const std::string& path) { return read_case_text(path, read_case_file(path)); }
+Case read_case(const std::string& path) { return read_case_text(path, read_input_file(path, "case file")); }
 
 Case read_case_text(const std::string& path, const std::string& text) {
-  const Document doc = parse(path, text);
+  const Document doc = parse_document(path, text);
   Case c = read_fields(doc);
   // Consistency across keys only once every key has been read in range.
   if (const auto p = case_problem(c)) fail_at_key(doc, p->key, p->what, p->expected);

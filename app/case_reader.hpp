@@ -18,9 +18,6 @@ Case read_case(const std::string& path);
 /// numbers are those of `text`.
 Case read_case_text(const std::string& path, const std::string& text);
 
-/// The text of a case file; throws InputError when it is missing, a folder or unreadable.
-std::string read_case_file(const std::string& path);
-
 /// The case with `steps` steps instead of its own (from the command line), checked again.
 /// Throws InputError for studies without steps to change, or when the new count does not fit.
 void override_steps(Case& c, int steps);

@@ -15,8 +15,6 @@ namespace {
 
 namespace fs = std::filesystem;
 
-int line_of(const toml::node& node) { return std::max(1, static_cast<int>(node.source().begin.line)); }
-
 /// Fails on any key of `table` not in `keys`.
 void only_keys(const Document& doc, const toml::table& table, std::string_view where,
                const std::vector<std::string>& keys) {
@@ -120,15 +118,9 @@ VariedKey read_varied(const Document& doc, const toml::node& entry, std::size_t 
 
 /// Every varied and fixed key must be a single value set in the base case.
 void check_against_base(const Document& study, const StudyFile& s) {
-  toml::table base;
-  try {
-    base = toml::parse(s.base_text, std::string_view(s.base_case));
-  } catch (const toml::parse_error& e) {
-    throw InputError(fmt::format("{}:{}: not valid TOML: {}", s.base_case, std::max<int>(1, e.source().begin.line),
-                                 e.description()));
-  }
+  const Document base = parse_document(s.base_case, s.base_text);
   const auto check = [&](const std::string& key, int line) {
-    const toml::node* node = base.at_path(key).node();
+    const toml::node* node = base.root.at_path(key).node();
     if (!node) fail(study, line, key, fmt::format("not set in the base case {}", s.base_case),
                     "a key the base case sets (set it there, so the sweep has a value to replace)");
     if (node->is_table() || node->is_array())
@@ -138,7 +130,8 @@ void check_against_base(const Document& study, const StudyFile& s) {
   for (const auto& f : s.fixed) check(f.key, f.line);
 }
 
-std::size_t variant_count(const Document& doc, const StudyFile& s) {
+/// Zipped lists must have one length, and the variants must not exceed kMaxVariants.
+void check_variant_count(const Document& doc, const StudyFile& s) {
   std::size_t n = 1;
   for (const auto& v : s.varied) {
     if (s.combine == Combine::zip && v.values.size() != s.varied.front().values.size())
@@ -148,19 +141,12 @@ std::size_t variant_count(const Document& doc, const StudyFile& s) {
     n = s.combine == Combine::zip ? v.values.size() : n * v.values.size();
     if (n > kMaxVariants) fail(doc, v.line, v.key, fmt::format("makes more than {} variants", kMaxVariants), "fewer values");
   }
-  return n;
 }
 
 }  // namespace
 
 StudyFile read_study_file(const std::string& path) {
-  const std::string text = read_case_file(path);
-  Document doc{path, {}};
-  try {
-    doc.root = toml::parse(text, std::string_view(path));
-  } catch (const toml::parse_error& e) {
-    throw InputError(fmt::format("{}:{}: not valid TOML: {}", path, std::max<int>(1, e.source().begin.line), e.description()));
-  }
+  const Document doc = parse_document(path, read_input_file(path, "study file"));
   const Fields root(doc, {"title", "base_case", "combine", "rank_by", "fixed", "vary"});
   StudyFile s;
   s.path = path;
@@ -169,7 +155,7 @@ StudyFile read_study_file(const std::string& path) {
   const fs::path base = fs::path(root.text_or("base_case", ""));
   s.base_case = (base.is_absolute() ? base : fs::path(path).parent_path() / base).lexically_normal().string();
   try {
-    s.base_text = read_case_file(s.base_case);
+    s.base_text = read_input_file(s.base_case, "case file");
   } catch (const InputError& e) {
     root.fail("base_case", e.what(), "a readable case file");
   }
@@ -186,7 +172,7 @@ StudyFile read_study_file(const std::string& path) {
     for (const auto& v : s.varied)
       if (f.key == v.key) fail(doc, f.line, f.key, "both fixed and varied", "the key in one place");
   check_against_base(doc, s);
-  variant_count(doc, s);
+  check_variant_count(doc, s);
   return s;
 }
 

@@ -33,14 +33,13 @@ std::string read_text(const fs::path& path) {
 }
 
 /// The row of one variant from the first folder that holds its record.
-post::SweepRow collect_row(const ManifestEntry& e, const std::vector<fs::path>& dirs, std::size_t n_metrics,
-                           fs::path& where) {
+post::SweepRow collect_row(const ManifestEntry& e, const std::vector<fs::path>& dirs, std::size_t n_metrics) {
   post::SweepRow row{e.id, e.inputs, "missing", "no result in any of the folders", std::vector<double>(n_metrics, post::kNoValue), 0};
   if (!e.problem.empty()) row.status = "invalid", row.message = e.problem;
   for (const auto& dir : dirs) {
     const auto record = read_variant_record(dir / e.id);
     if (!record) continue;
-    where = dir / e.id;
+    const fs::path where = dir / e.id;
     row.status = record->status;
     row.message = record->message;
     if (row.status != "ok") return row;
@@ -105,10 +104,7 @@ post::SweepTable collect_table(const CollectOptions& o) {
                                    o.dirs[i].string(), other.study_file, o.dirs.front().string(), m.study_file));
   }
   post::SweepTable t{m.title, m.study_file, m.base_case, m.parameters, sweep_metric_columns(), {}, -1};
-  for (const auto& e : m.variants) {
-    fs::path where;
-    t.rows.push_back(collect_row(e, o.dirs, t.metrics.size(), where));
-  }
+  for (const auto& e : m.variants) t.rows.push_back(collect_row(e, o.dirs, t.metrics.size()));
   rank_rows(t, !o.rank_by.empty() ? o.rank_by : !m.rank_by.empty() ? m.rank_by : "fundamental_T");
   return t;
 }

@@ -2,6 +2,11 @@
 
 #include <algorithm>
 #include <cassert>
+#include <cerrno>
+#include <cstring>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
 #include <cmath>
 #include <utility>
 
@@ -10,13 +15,36 @@
 #include "app/input_error.hpp"
 
 namespace tf::app {
-namespace {
 
 int line_of(const toml::node& node) {
   // toml++ leaves the line at 0 for nodes that were not parsed from text; point at the file's start.
   const auto line = static_cast<int>(node.source().begin.line);
   return line > 0 ? line : 1;
 }
+
+std::string read_input_file(const std::string& path, std::string_view kind) {
+  namespace fs = std::filesystem;
+  if (path.empty()) throw InputError(fmt::format("no {} given", kind));
+  std::error_code ec;
+  if (fs::is_directory(path, ec)) throw InputError(fmt::format("{}: is a folder, not a {}", path, kind));
+  std::ifstream in(path, std::ios::binary);
+  if (!in) throw InputError(fmt::format("{}: cannot read the {}: {}", path, kind, std::strerror(errno)));
+  std::ostringstream text;
+  text << in.rdbuf();
+  return text.str();
+}
+
+Document parse_document(const std::string& path, const std::string& text) {
+  try {
+    return Document{path, toml::parse(text, std::string_view(path))};
+  } catch (const toml::parse_error& e) {
+    const auto& at = e.source().begin;
+    throw InputError(fmt::format("{}:{}: not valid TOML (column {}): {}", path, std::max<int>(1, at.line),
+                                 at.column, e.description()));
+  }
+}
+
+namespace {
 
 std::string type_name(const toml::node& node) {
   switch (node.type()) {
@@ -43,7 +71,7 @@ std::string format_real(double v) {
   return s;
 }
 
-std::string quoted(std::string_view text) {
+std::string toml_quoted(std::string_view text) {
   std::string s = "\"";
   for (const char ch : text) {
     if (ch == '"' || ch == '\\') s += '\\';
@@ -135,7 +163,7 @@ std::string nearest(std::string_view word, const std::vector<std::string>& candi
 }
 
 std::string format_value(const toml::node& node) {
-  if (const auto* s = node.as_string()) return quoted(s->get());
+  if (const auto* s = node.as_string()) return toml_quoted(s->get());
   if (const auto* i = node.as_integer()) return fmt::format("{}", i->get());
   if (const auto* f = node.as_floating_point()) return format_real(f->get());
   if (const auto* b = node.as_boolean()) return b->get() ? "true" : "false";
@@ -313,7 +341,7 @@ bool Fields::boolean_or(std::string_view key, bool fallback) const {
 
 std::size_t Fields::choice(std::string_view key, const std::vector<std::string>& choices) const {
   std::vector<std::string> shown;
-  for (const std::string& c : choices) shown.push_back(quoted(c));
+  for (const std::string& c : choices) shown.push_back(toml_quoted(c));
   const std::string expected = join_or(shown);
   const toml::node& node = required(key, expected);
   const auto* s = node.as_string();
@@ -323,7 +351,7 @@ std::size_t Fields::choice(std::string_view key, const std::vector<std::string>&
   const std::string guess = nearest(s->get(), choices);
   fail(key,
        guess.empty() ? "not one of the choices"
-                     : fmt::format("not one of the choices (did you mean {}?)", quoted(guess)),
+                     : fmt::format("not one of the choices (did you mean {}?)", toml_quoted(guess)),
        expected);
 }
 

@@ -24,6 +24,16 @@ struct Document {
   toml::table root;
 };
 
+/// The text of a file the user named; `kind` ("case file", "study file") words the messages.
+/// Throws InputError when the path is empty, a folder or unreadable.
+std::string read_input_file(const std::string& path, std::string_view kind);
+
+/// Parses TOML text; `path` names it in messages. Throws InputError "<path>:<line>: not valid TOML".
+Document parse_document(const std::string& path, const std::string& text);
+
+/// The line of a parsed node; 1 for nodes made in memory.
+int line_of(const toml::node& node);
+
 /// Bounds of a real value. The unit only decorates messages.
 struct RealRange {
   double min = -std::numeric_limits<double>::infinity();

@@ -8,6 +8,7 @@
 #include <toml++/toml.h>
 
 #include "app/input_error.hpp"
+#include "app/toml_fields.hpp"
 
 namespace tf::app {
 namespace {
@@ -69,12 +70,7 @@ std::string variant_id(const std::string& case_text) {
 }
 
 std::vector<Variant> expand_variants(const StudyFile& s) {
-  toml::table base;
-  try {
-    base = toml::parse(s.base_text, std::string_view(s.base_case));
-  } catch (const toml::parse_error& e) {
-    throw InputError(fmt::format("{}:{}: not valid TOML: {}", s.base_case, e.source().begin.line, e.description()));
-  }
+  const toml::table base = parse_document(s.base_case, s.base_text).root;
   const std::vector<std::string> lines = split_lines(s.base_text);
   const bool newline = !s.base_text.empty() && s.base_text.back() == '\n';
   std::vector<std::pair<ValueSpot, std::string>> fixed;
