@@ -12,15 +12,13 @@
 
 #include <CLI/CLI.hpp>
 
-#include "app/case_reader.hpp"
-#include "app/compare.hpp"
-#include "app/eddy_run.hpp"
-#include "app/motion_run.hpp"
-#include "app/input_error.hpp"
-#include "app/run_case.hpp"
-#include "app/sweep_collect.hpp"
-#include "app/sweep_run.hpp"
 #include "app/winding_report.hpp"
+#include "input/case_reader.hpp"
+#include "input/input_error.hpp"
+#include "study/compare.hpp"
+#include "study/run.hpp"
+#include "sweep/sweep_collect.hpp"
+#include "sweep/sweep_run.hpp"
 #include "mesh/mesh.hpp"
 #include "post/atomic_file.hpp"
 #include "solver/errors.hpp"
@@ -31,13 +29,13 @@ namespace fs = std::filesystem;
 
 fs::path default_out_dir(const std::string& case_path) { return fs::path("results") / fs::path(case_path).stem(); }
 
-/// "k/N" with 1 <= k <= N; throws InputError otherwise.
-tf::app::Shard parse_shard(const std::string& text) {
-  tf::app::Shard s;
+/// "k/N" with 1 <= k <= N; throws input::InputError otherwise.
+tf::sweep::Shard parse_shard(const std::string& text) {
+  tf::sweep::Shard s;
   char slash = 0, rest = 0;
   std::istringstream in(text);
   if (!(in >> s.k >> slash >> s.n) || slash != '/' || in >> rest || s.n < 1 || s.k < 1 || s.k > s.n)
-    throw tf::app::InputError("--shard " + text + ": expected k/N with 1 <= k <= N, e.g. --shard 2/8");
+    throw tf::input::InputError("--shard " + text + ": expected k/N with 1 <= k <= N, e.g. --shard 2/8");
   return s;
 }
 
@@ -48,7 +46,7 @@ int guarded(Action action) {
     if constexpr (std::is_same_v<decltype(action()), int>) return action();
     else action();
     return 0;
-  } catch (const tf::app::InputError& e) {
+  } catch (const tf::input::InputError& e) {
     std::cerr << "error: " << e.what() << '\n';
     return 2;
   } catch (const tf::mesh::MeshError& e) {
@@ -67,7 +65,7 @@ int guarded(Action action) {
 
 int main(int argc, char** argv) {
   CLI::App cli{"turnfield: rotating-field analysis of AC machine stators by 2D finite elements"};
-  cli.set_version_flag("--version", tf::app::kVersion);
+  cli.set_version_flag("--version", tf::study::kVersion);
   cli.require_subcommand(1);
   std::string case_path, out_dir;
   std::vector<std::string> case_paths;
@@ -86,7 +84,10 @@ int main(int argc, char** argv) {
   mesh->add_option("CASE", case_path, "case file (TOML)")->required();
   mesh->add_option("--out", out_dir, "output folder (default results/<case name>/mesh)");
   mesh->add_option("--fineness", fineness, "override the case's mesh fineness")->check(CLI::Range(0.1, 20.0));
-  auto* run = cli.add_subcommand("run", "solve the phase-angle study and write the results");
+  mesh->add_option("--steps", steps, "override the number of steps, as for run (a rotor-motion study's steps set "
+                                     "the sliding circle's nodes)")
+      ->check(CLI::Range(2, 100000));
+  auto* run = cli.add_subcommand("run", "solve the case's study and write the results");
   run->add_option("CASE", case_path, "case file (TOML)")->required();
   run->add_option("--out", out_dir, "output folder (default results/<case name>)");
   run->add_flag("--all-steps", all_steps, "write a field file for every step");
@@ -104,12 +105,13 @@ int main(int argc, char** argv) {
   compare->add_option("--fineness", fineness, "override every case's mesh fineness")->check(CLI::Range(0.1, 20.0));
   compare->add_option("--field-files", field_files, "override the number of VTU files per case (0: none)")
       ->check(CLI::Range(0, 1000000));
+  compare->add_option("--steps", steps, "override every case's number of steps")->check(CLI::Range(2, 100000));
 
-  tf::app::SweepOptions sweep_options;
+  tf::sweep::SweepOptions sweep_options;
   std::string shard = "1/1", rank_by;
   std::vector<std::string> collect_dirs;
-  auto* sweep = cli.add_subcommand("sweep", "run every variant of a study file, several at a time, and rank them");
-  sweep->add_option("STUDY", case_path, "study file (TOML): a base case and the keys to vary")->required();
+  auto* sweep = cli.add_subcommand("sweep", "run every variant of a sweep file, several at a time, and rank them");
+  sweep->add_option("SWEEP_FILE", case_path, "sweep file (TOML): a base case and the keys to vary")->required();
   sweep->add_option("--out", out_dir, "output folder (default results/<study name>)");
   sweep->add_option("-j,--jobs", sweep_options.jobs, "variants at once (default: the number of cores)")
       ->check(CLI::Range(1, 1024));
@@ -134,46 +136,42 @@ int main(int argc, char** argv) {
       sweep_options.shard = parse_shard(shard);
       sweep_options.rank_by = rank_by;
       sweep_options.out_dir = out_dir.empty() ? default_out_dir(case_path) : fs::path(out_dir);
-      return tf::app::run_sweep(case_path, sweep_options, std::cout, std::cerr);
+      return tf::sweep::run_sweep(case_path, sweep_options, std::cout, std::cerr);
     });
   if (collect->parsed())
     return guarded([&] {
       std::vector<fs::path> dirs(collect_dirs.begin(), collect_dirs.end());
-      return tf::app::collect_sweep({dirs, out_dir.empty() ? dirs.front() : fs::path(out_dir), rank_by}, std::cout);
+      return tf::sweep::collect_sweep({dirs, out_dir.empty() ? dirs.front() : fs::path(out_dir), rank_by}, std::cout);
     });
 
   if (compare->parsed())
     return guarded([&] {
-      std::vector<tf::app::Case> cases;  // all read and checked before anything runs
+      std::vector<tf::input::Case> cases;  // all read and checked before anything runs
       for (const auto& path : case_paths) {
-        cases.push_back(tf::app::read_case(path));
+        cases.push_back(tf::input::read_case(path));
         if (fineness > 0.0) cases.back().mesh.fineness = fineness;
+        if (steps > 0) tf::input::override_steps(cases.back(), steps);
       }
-      tf::app::compare_cases(cases, out_dir.empty() ? fs::path("results") / "comparison" : fs::path(out_dir),
+      tf::study::compare_cases(cases, out_dir.empty() ? fs::path("results") / "comparison" : fs::path(out_dir),
                              field_files, std::cout);
     });
 
   return guarded([&] {
-    tf::app::Case c = tf::app::read_case(case_path);
+    tf::input::Case c = tf::input::read_case(case_path);
     if (fineness > 0.0) c.mesh.fineness = fineness;
-    if (steps > 0) tf::app::override_steps(c, steps);
+    if (steps > 0) tf::input::override_steps(c, steps);
     if (field_files >= 0) c.study.n_field_files = std::min(field_files, c.study.n_steps);
     if (check->parsed()) {
       std::cout << case_path << ": valid (" << c.title << ")\n";
     } else if (winding->parsed()) {
       tf::app::print_winding(c, as_json, std::cout);
     } else if (mesh->parsed()) {
-      tf::app::mesh_case(c, out_dir.empty() ? default_out_dir(case_path) / "mesh" : fs::path(out_dir), std::cout);
+      tf::study::write_mesh(c, out_dir.empty() ? default_out_dir(case_path) / "mesh" : fs::path(out_dir), std::cout);
     } else {
-      tf::app::check_report_step(c, report_step);
-      tf::app::RunOptions options{out_dir.empty() ? default_out_dir(case_path) : fs::path(out_dir), all_steps,
-                                  report_step};
-      if (c.study.kind == tf::post::StudyKind::eddy_currents)
-        tf::app::run_eddy_case(c, options, std::cout);
-      else if (tf::app::solved_step_by_step(c))
-        tf::app::run_motion_case(c, options, std::cout);
-      else
-        tf::app::run_case(c, options, std::cout);
+      tf::study::check_report_step(c, report_step);
+      tf::study::RunOptions options{out_dir.empty() ? default_out_dir(case_path) : fs::path(out_dir), all_steps,
+                                   report_step};
+      tf::study::run_study(c, options, std::cout);
     }
   });
 }

@@ -116,7 +116,7 @@ void print_json(const mesh::Winding& w, std::ostream& out) {
 
 }  // namespace
 
-void print_winding(const Case& c, bool as_json, std::ostream& out) {
+void print_winding(const input::Case& c, bool as_json, std::ostream& out) {
   const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator);
   if (as_json) return print_json(w, out);
   print_header(w, c.geometry.stator.kind == mesh::StatorKind::slotless, out);

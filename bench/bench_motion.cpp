@@ -11,9 +11,9 @@
 
 #include <fmt/format.h>
 
-#include "app/case_reader.hpp"
-#include "app/motion_plan.hpp"
-#include "app/run_case.hpp"
+#include "input/case_reader.hpp"
+#include "study/motion_plan.hpp"
+#include "study/mesh_plan.hpp"
 #include "solver/assemble.hpp"
 #include "solver/dofs.hpp"
 #include "solver/motion.hpp"
@@ -29,13 +29,12 @@ double since(Clock::time_point t) { return std::chrono::duration<double>(Clock::
 int main(int argc, char** argv) {
   using namespace tf;
   const std::string path = argc > 1 ? argv[1] : "cases/pump24_magnets_synchronous.toml";
-  app::Case c = app::read_case(path);
+  input::Case c = input::read_case(path);
   c.study.n_steps = argc > 2 ? std::stoi(argv[2]) : 90;
-  c.mesh.sliding_multiple = app::sliding_multiple(c);
   auto t = Clock::now();
-  const auto [m, w] = app::mesh_and_wind(c);
+  const auto [m, w] = study::mesh_and_wind(c);
   const double mesh_seconds = since(t);
-  const app::MotionSchedule plan = app::plan_motion(c, m, w);
+  const study::MotionSchedule plan = study::plan_motion(c, m, w);
   {  // One linear system of this mesh: the size of its factor and the cost of one factorization.
     const solver::DofMap d = solver::number_dofs(m, 0);
     const auto K = solver::assemble_stiffness(m, d, solver::region_reluctivity(m, c.materials));

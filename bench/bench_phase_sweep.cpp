@@ -12,7 +12,7 @@
 
 #include <fmt/format.h>
 
-#include "app/case_reader.hpp"
+#include "input/case_reader.hpp"
 #include "mesh/build.hpp"
 #include "mesh/winding.hpp"
 #include "post/study.hpp"
@@ -32,7 +32,7 @@ double since(Clock::time_point t) { return std::chrono::duration<double>(Clock::
 int main(int argc, char** argv) {
   using namespace tf;
   const std::string path = argc > 1 ? argv[1] : "cases/pump24_three_phase.toml";
-  app::Case c = app::read_case(path);
+  input::Case c = input::read_case(path);
   c.mesh.fineness = argc > 2 ? std::stod(argv[2]) : 1.6;
   c.study.n_steps = argc > 3 ? std::stoi(argv[3]) : 180;
 
@@ -49,7 +49,7 @@ int main(int argc, char** argv) {
   stage.push_back({"solve (m phases, one block)", f.stats.solve_seconds});
 
   t = Clock::now();
-  const post::StudyResult r = post::phase_sweep(m, w, f, c.supply, c.study);
+  const post::StudyResult r = post::phase_sweep(m, w, f, c.supply, c.study.n_steps, {c.study.n_gap_points, c.study.max_harmonic});
   stage.push_back({fmt::format("post ({} steps)", c.study.n_steps), since(t)});
 
   t = Clock::now();

@@ -11,8 +11,8 @@
 
 #include <fmt/format.h>
 
-#include "app/case_reader.hpp"
-#include "app/run_case.hpp"
+#include "input/case_reader.hpp"
+#include "study/mesh_plan.hpp"
 #include "mesh/build.hpp"
 #include "mesh/winding.hpp"
 #include "post/eddy_quantities.hpp"
@@ -34,10 +34,10 @@ int main(int argc, char** argv) {
   fmt::print("{:>8} {:>9} {:>11} {:>12} {:>10} {:>9}\n", "fineness", "unknowns", "worst err %", "s per speed",
              "wall s", "analyse %");
   for (double fineness : {0.5, 1.0, 2.0, 3.0, 4.0}) {
-    app::Case c = app::read_case(path);
+    input::Case c = input::read_case(path);
     c.mesh.fineness = fineness;
     const auto start = Clock::now();
-    const auto [m, w] = app::mesh_and_wind(c);
+    const auto [m, w] = study::mesh_and_wind(c);
     const solver::EddySystem s = solver::assemble_eddy(m, w, c.materials);
     const auto currents = solver::supply_phasors(c.supply, c.winding.n_phases);
     solver::EddyStats stats;

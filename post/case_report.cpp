@@ -161,6 +161,12 @@ Page base_page(const ReportContext& x, const std::string& what) {
   return page;
 }
 
+std::vector<double> rotor_angles(const MotionResult& r) {
+  std::vector<double> out;
+  for (const auto& s : r.steps) out.push_back(s.rotor_angle * kDeg);
+  return out;
+}
+
 std::vector<double> step_angles(const StudyResult& r) {
   std::vector<double> out;
   for (const auto& s : r.steps) out.push_back(s.electrical_angle * kDeg);
@@ -181,19 +187,10 @@ Section inputs_section(const std::string& inputs_json) {
   return s;
 }
 
-Page phase_study_page(const ReportContext& x, const StudyResult& r) {
-  Page page = base_page(x, "Phase-angle study: the currents advance through one electrical period");
-  page.sections.push_back({"Headline numbers", field_rows(r.metrics, x.winding_factor),
-                           "Metrics of the fundamental phasor c_p of B_r on the mid-gap circle over the steps; "
-                           "ripples are (max − min)/mean; angles mechanical."});
-  add_gap_figures(page, x, r, step_angles(r), {"ωt", "° el."});
-  page.appendix.push_back(inputs_section(x.inputs_json));
-  return page;
-}
+namespace {
 
-Page motion_study_page(const ReportContext& x, const MotionResult& r) {
-  Page page = base_page(x, "Rotor-motion study (" + x.study + "): the rotor turns step by step");
-  std::vector<KeyValue> rows;
+/// Torque rows and the torque figure of a study whose rotor turns.
+void add_torque(Page& page, std::vector<KeyValue>& rows, const MotionResult& r) {
   const auto torque_row = [&](const char* name, const TorqueStats& t) {
     rows.push_back({std::string("torque, ") + name + ", mean", num(t.mean, 5), "N·m"});
     rows.push_back({std::string("torque, ") + name + ", min – max", num(t.min, 5) + " – " + num(t.max, 5), "N·m"});
@@ -203,31 +200,19 @@ Page motion_study_page(const ReportContext& x, const MotionResult& r) {
   torque_row("circle", r.circle);
   rows.push_back({"cogging period expected (360°/LCM(Q, 2p))", num(r.cogging_period_expected * kDeg), "° mech."});
   rows.push_back({"cogging period in the Arkkio torque", num(r.cogging_period_measured * kDeg), "° mech."});
-  rows.push_back({"Newton iterations per solve", num(r.mean_newton_iterations, 3), ""});
-  for (auto& row : field_rows(r.gap.metrics, x.winding_factor)) rows.push_back(std::move(row));
-  page.sections.push_back({"Headline numbers", rows,
-                           "Torque over the stack length, counter-clockwise positive. Arkkio: Maxwell stress "
-                           "averaged over the gap band (main value); circle: on the mid-gap circle; virtual work: "
-                           "co-energy difference of neighbouring rotor positions."});
-  std::vector<double> angle;
-  svg::Series arkkio{"Arkkio", {}, {}}, circle{"circle", {}, {}, true}, work{"virtual work", {}, {}, false, true};
-  for (const auto& s : r.steps) {
-    angle.push_back(s.rotor_angle * kDeg);
+  svg::Series arkkio{"Arkkio", rotor_angles(r), {}}, circle{"circle", rotor_angles(r), {}, true},
+      work{"virtual work", rotor_angles(r), {}, false, true};
+  for (const auto& s : r.steps)
     arkkio.y.push_back(s.torque_arkkio), circle.y.push_back(s.torque_circle), work.y.push_back(s.torque_virtual_work);
-  }
-  arkkio.x = circle.x = work.x = angle;
   // Arkkio's (the main value) drawn last, on top of the cross-checks that often coincide with it.
   svg::LineChart torque{"Torque against rotor angle", {"rotor angle", "° mech."}, {"torque", "N·m"}, {circle}, {}};
   if (std::any_of(work.y.begin(), work.y.end(), [](double v) { return std::isfinite(v); })) torque.series.push_back(work);
   torque.series.push_back(arkkio);
   page.figures.push_back({"torque", "Torque on the rotor at each position by three methods.", svg::line_chart(torque)});
-  add_gap_figures(page, x, r.gap, angle, {"rotor angle", "° mech."});
-  page.appendix.push_back(inputs_section(x.inputs_json));
-  return page;
 }
 
-Page eddy_study_page(const ReportContext& x, const std::vector<SpeedResult>& rows) {
-  Page page = base_page(x, "Eddy-current study: one time-harmonic solution per rotor speed");
+/// The per-speed table, headline rows and figures of an eddy-current study.
+void add_speeds(Page& page, std::vector<KeyValue>& head, const std::vector<SpeedResult>& rows) {
   svg::Series t{"Arkkio", {}, {}, false, true}, tl{"cross-check", {}, {}, true, true};
   svg::Series l{"integrated", {}, {}, false, true}, lb{"power balance", {}, {}, true, true};
   Table table{"Per speed", {"speed [rad/s]", "slip", "torque Arkkio [N·m]", "torque cross-check [N·m]",
@@ -242,21 +227,57 @@ Page eddy_study_page(const ReportContext& x, const std::vector<SpeedResult>& row
                           num(s.rotor_loss, 5), num(s.rotor_loss_balance, 5), num(s.input_power, 5)});
     if (std::abs(s.torque) > std::abs(rows[best].torque)) best = k;
   }
-  std::vector<KeyValue> head{{"rotor speeds", std::to_string(rows.size()), ""}};
+  head.push_back({"rotor speeds", std::to_string(rows.size()), ""});
   if (!rows.empty()) {
     head.push_back({"largest |torque| (Arkkio)", num(rows[best].torque, 5), "N·m"});
     head.push_back({"at speed", num(rows[best].rotor_speed, 6), "rad/s"});
     head.push_back({"at slip", num(rows[best].slip, 4), ""});
   }
-  page.sections.push_back({"Headline numbers", head, "Time averages over a period of the peak phasors; torque over the "
-                                                     "stack length, counter-clockwise positive."});
   page.tables.push_back(std::move(table));
   page.figures.push_back({"torque_speed", "Time-averaged torque against rotor speed: Arkkio's method and its cross-check.",
                           svg::line_chart({"Torque against rotor speed", {"rotor speed", "rad/s"}, {"torque", "N·m"}, {t, tl}, {}})});
   page.figures.push_back({"rotor_loss", "Rotor loss against rotor speed: integrated from the induced currents, and "
                                         "from the power balance (input − stator loss − mechanical power).",
                           svg::line_chart({"Rotor loss against rotor speed", {"rotor speed", "rad/s"}, {"rotor loss", "W"}, {l, lb}, {}})});
-  if (x.section.mesh) page.figures.push_back(cross_section_figure(x.section));
+}
+
+/// What the headline table says about how its numbers were found.
+std::string headline_note(const RunRecord& r) {
+  std::string note;
+  if (r.field && r.field_rotates)
+    note += "Metrics of the fundamental phasor c_p of B_r on the mid-gap circle over the steps; ripples are "
+            "(max − min)/mean; angles mechanical. ";
+  if (r.motion && r.rotor_turns)
+    note += "Torque over the stack length, counter-clockwise positive. Arkkio: Maxwell stress averaged over the gap "
+            "band (main value); circle: on the mid-gap circle; virtual work: co-energy difference of neighbouring "
+            "rotor positions. ";
+  if (r.eddy) note += "Time averages over a period of the peak phasors; torque over the stack length, counter-clockwise positive. ";
+  if (r.motion) note += "Each step solved on its own with Newton's method (nonlinear iron where B-H curves are given).";
+  return note;
+}
+
+}  // namespace
+
+Page study_page(const ReportContext& x, const RunRecord& r) {
+  Page page = base_page(x, r.study + " study, solved by " + r.strategy);
+  std::vector<KeyValue> rows;
+  if (r.motion && r.rotor_turns) add_torque(page, rows, *r.motion);
+  if (r.motion) rows.push_back({"Newton iterations per solve", num(r.motion->mean_newton_iterations, 3), ""});
+  if (r.field && r.field_rotates) {
+    for (auto& row : field_rows(r.field->metrics, x.winding_factor)) rows.push_back(std::move(row));
+  } else if (r.field) {
+    rows.push_back({"air-gap B_r fundamental (mean over steps)", num(r.field->metrics.mean_fundamental), "T"});
+    rows.push_back({"peak-field ripple", num(100 * r.field->metrics.peak_ripple), "%"});
+  }
+  if (r.eddy) add_speeds(page, rows, r.eddy->rows);
+  page.sections.insert(page.sections.begin(), Section{"Headline numbers", rows, headline_note(r)});
+  if (r.field) {
+    const bool by_rotor = r.motion && r.rotor_turns;
+    add_gap_figures(page, x, *r.field, by_rotor ? rotor_angles(*r.motion) : step_angles(*r.field),
+                    by_rotor ? svg::Axis{"rotor angle", "° mech."} : svg::Axis{"ωt", "° el."});
+  } else if (x.section.mesh) {
+    page.figures.push_back(cross_section_figure(x.section));
+  }
   page.appendix.push_back(inputs_section(x.inputs_json));
   return page;
 }

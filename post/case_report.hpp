@@ -12,6 +12,7 @@
 #include "post/html_report.hpp"
 #include "post/motion_result.hpp"
 #include "post/study.hpp"
+#include "post/summary.hpp"
 
 namespace tf::post {
 
@@ -37,15 +38,10 @@ struct ReportContext {
 /// |B| [T] per triangle of nodal A_z [Wb/m].
 Eigen::VectorXd flux_density_magnitude(const mesh::Mesh& m, const Eigen::VectorXd& a);
 
-/// Phase-angle study: headline field metrics, cross-section, B_r waveforms, space spectrum,
-/// locus of the fundamental, amplitude and axis angle over the period.
-Page phase_study_page(const ReportContext& x, const StudyResult& r);
-
-/// Rotor-motion study: the gap-field figures over the rotor angle plus torque by three methods.
-Page motion_study_page(const ReportContext& x, const MotionResult& r);
-
-/// Eddy-current study: torque and rotor loss against speed, a table per speed.
-Page eddy_study_page(const ReportContext& x, const std::vector<SpeedResult>& rows);
+/// The report page of a run, assembled from the bodies its record has: headline numbers (field
+/// metrics, torque, Newton, speeds), the cross-section, the gap-field figures over the steps, the
+/// torque figure, the per-speed table and figures, and the inputs.
+Page study_page(const ReportContext& x, const RunRecord& r);
 
 /// The inputs echoed as rows "section.key = value" with the unit read from the key's suffix
 /// ("frequency_Hz" -> Hz); an invalid document gives one row saying so.

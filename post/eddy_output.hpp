@@ -1,5 +1,5 @@
 #pragma once
-// Files of an eddy-current study: torque_speed.csv, a VTU file per speed, summary.json.
+// Files of an eddy-current study: torque_speed.csv and a VTU file per speed.
 
 #include <filesystem>
 #include <optional>
@@ -27,21 +27,5 @@ void write_eddy_vtu(const std::filesystem::path& path, const mesh::Mesh& m, cons
 
 /// Peak over a period of |B| [T] per triangle of the peak phasor A [Wb/m] (#nodes).
 Eigen::VectorXd peak_flux_density(const mesh::Mesh& m, const Eigen::VectorXcd& a);
-
-struct EddyRecord {
-  std::string version, inputs_json;
-  const mesh::Mesh* mesh = nullptr;
-  const mesh::Winding* winding = nullptr;
-  const std::vector<SpeedResult>* rows = nullptr;
-  std::vector<SkinDepth> skin;
-  solver::EddyStats stats;
-  std::vector<std::pair<std::string, double>> seconds;
-  std::vector<std::string> files;
-  /// How rotor motion entered the model.
-  std::string method = "motion term sigma omega_r dA/dtheta (exact for rotationally invariant rotors)";
-  std::optional<double> end_ring_factor;  ///< slip method with end rings given: the bar-conductivity factor
-  double unmodelled_current = 0.0;  ///< slip method: largest phase current [A] left out (no rotating fundamental)
-};
-void write_eddy_summary(const std::filesystem::path& path, const EddyRecord& r);
 
 }  // namespace tf::post

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <numbers>
 
 #include "post/arkkio_band.hpp"
@@ -118,6 +119,11 @@ SpeedResult evaluate_speed(const SpeedInputs& in, double rotor_speed, const Eige
 
 namespace tf::post {
 
+double skin_depth(double omega, double mu_r, double sigma) {
+  if (omega * sigma <= 0.0) return std::numeric_limits<double>::infinity();
+  return std::sqrt(2.0 / (omega * kMu0 * mu_r * sigma));
+}
+
 std::vector<SkinDepth> skin_depths(const mesh::Mesh& m, const std::vector<double>& sigma,
                                    const std::vector<double>& mu_r, const std::vector<bool>& on_rotor,
                                    double frequency, const std::vector<double>& rotor_speeds, int pole_pairs) {
@@ -128,7 +134,7 @@ std::vector<SkinDepth> skin_depths(const mesh::Mesh& m, const std::vector<double
   std::vector<double> depth(n, INFINITY), r_min(n, INFINITY), r_max(n, 0.0), longest(n, 0.0);
   for (std::size_t r = 0; r < n; ++r) {
     const double w = on_rotor[r] ? slip_omega : omega;
-    if (sigma[r] > 0.0 && w > 0.0) depth[r] = std::sqrt(2.0 / (w * kMu0 * mu_r[r] * sigma[r]));
+    if (sigma[r] > 0.0 && w > 0.0) depth[r] = skin_depth(w, mu_r[r], sigma[r]);
   }
   for (int t = 0; t < m.n_triangles(); ++t)
     for (int i = 0; i < 3; ++i) {

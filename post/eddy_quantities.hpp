@@ -97,6 +97,10 @@ struct SkinDepth {
   bool too_coarse = false;    ///< fewer than three elements per skin depth there
 };
 
+/// Skin depth delta = sqrt(2 / (omega mu0 mu_r sigma)) [m] of a conductor at angular frequency
+/// omega [rad/s] (R. L. Stoll, The Analysis of Eddy Currents, 1974); infinite where omega sigma = 0.
+double skin_depth(double omega, double mu_r, double sigma);
+
 /// delta per conducting region (R. L. Stoll, The Analysis of Eddy Currents, 1974): rotor regions see
 /// the fundamental at |omega - p omega_r| for the fastest slip among the speeds, stator regions omega.
 std::vector<SkinDepth> skin_depths(const mesh::Mesh& m, const std::vector<double>& sigma,

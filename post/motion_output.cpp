@@ -4,18 +4,17 @@
 #include <numbers>
 
 #include <fmt/format.h>
-#include <nlohmann/json.hpp>
 
 #include "post/atomic_file.hpp"
-#include "post/summary.hpp"
 #include "post/tables.hpp"
 #include "post/vtu.hpp"
 
 namespace tf::post {
 namespace {
 
-using nlohmann::json;
 constexpr double kDeg = 180.0 / std::numbers::pi;
+
+}  // namespace
 
 void write_torque_table(const std::filesystem::path& path, const MotionResult& r) {
   write_atomically(path, [&](std::ostream& out) {
@@ -56,66 +55,34 @@ void write_inductance_table(const std::filesystem::path& path, const MotionResul
   });
 }
 
-json torque_json(const TorqueStats& t) {
-  return {{"mean_Nm", t.mean}, {"min_Nm", t.min}, {"max_Nm", t.max}, {"peak_to_peak_Nm", t.peak_to_peak},
-          {"ripple", std::isnan(t.ripple) ? json(nullptr) : json(t.ripple)}};
-}
-
-/// Mean of the per-step matrices [H].
-json mean_inductances(const MotionResult& r, bool incremental) {
-  Eigen::MatrixXd sum = Eigen::MatrixXd::Zero(r.steps.front().inductance_frozen.rows(), r.steps.front().inductance_frozen.cols());
-  for (const auto& s : r.steps) sum += incremental ? s.inductance_incremental : s.inductance_frozen;
-  sum /= static_cast<double>(r.steps.size());
-  json rows = json::array();
-  for (Eigen::Index i = 0; i < sum.rows(); ++i) {
-    json row = json::array();
-    for (Eigen::Index j = 0; j < sum.cols(); ++j) row.push_back(sum(i, j));
-    rows.push_back(row);
-  }
-  return rows;
-}
-
-}  // namespace
-
-std::vector<std::string> write_motion_tables(const std::filesystem::path& dir, const MotionResult& r,
-                                             const mesh::Winding& w, double frequency) {
-  write_steps_table(dir / "steps.csv", r.gap, frequency);
-  write_gap_table(dir / "gap_field.csv", r.gap);
-  write_harmonics_table(dir / "harmonics.csv", r.gap, w.spec.pole_pairs());
-  write_poles_table(dir / "poles.csv", r.gap);
-  write_winding_tables(dir, w, 13);
-  write_torque_table(dir / "torque.csv", r);
-  write_inductance_table(dir / "inductances.csv", r);
-  return {"steps.csv", "gap_field.csv", "harmonics.csv", "poles.csv", "winding.csv", "winding_factors.csv",
-          "torque.csv", "inductances.csv"};
-}
-
 double drawn_rotor_angle(const mesh::Mesh& m, double rotor_angle) {
   const double sector = 2 * std::numbers::pi / m.symmetry.copies;
   return rotor_angle - std::floor(rotor_angle / sector) * sector;
 }
 
-std::vector<std::string> write_motion_fields(const std::filesystem::path& dir, const mesh::Mesh& m,
-                                             const MotionResult& r, const std::vector<int>& steps,
-                                             const std::vector<Eigen::VectorXd>& fields,
-                                             const std::vector<double>& step_time) {
+void write_position_field(const std::filesystem::path& path, const mesh::Mesh& m, const Eigen::VectorXd& field,
+                          double rotor_angle) {
+  // A sector model draws its rotor piece turned back by whole sectors into the stator's sector,
+  // showing the image of the field there (the sign flips once per sector when anti-periodic).
+  const double sector = 2 * std::numbers::pi / m.symmetry.copies;
+  const double turns = std::floor(rotor_angle / sector);
+  Eigen::VectorXd a = field;
+  if (m.symmetry.sign_of_copy(static_cast<int>(turns) % 2 == 0 ? 0 : 1) < 0) {
+    const std::vector<bool> rotor = mesh::rotor_side_nodes(m);
+    for (int node = 0; node < m.n_nodes(); ++node)
+      if (rotor[static_cast<std::size_t>(node)]) a(node) = -a(node);
+  }
+  write_field_vtu(path, mesh::with_rotor_turned(m, drawn_rotor_angle(m, rotor_angle)), a);
+}
+
+std::vector<std::string> write_field_series(const std::filesystem::path& dir, const std::vector<FieldFrame>& frames) {
   std::vector<std::string> files;
-  if (steps.empty()) return files;
+  if (frames.empty()) return files;
   std::vector<CollectionEntry> entries;
-  const std::vector<bool> rotor = mesh::rotor_side_nodes(m);
-  for (std::size_t i = 0; i < steps.size(); ++i) {
-    const int k = steps[i];
-    const std::string name = fmt::format("field_{:04d}.vtu", k);
-    // A sector model draws its rotor piece turned back by whole sectors into the stator's sector,
-    // showing the image of the field there (the sign flips once per sector when anti-periodic).
-    const double sector = 2 * std::numbers::pi / m.symmetry.copies;
-    const double turns = std::floor(r.steps[k].rotor_angle / sector);
-    Eigen::VectorXd a = fields[i];
-    if (m.symmetry.sign_of_copy(static_cast<int>(turns) % 2 == 0 ? 0 : 1) < 0)
-      for (int node = 0; node < m.n_nodes(); ++node)
-        if (rotor[static_cast<std::size_t>(node)]) a(node) = -a(node);
-    write_field_vtu(dir / name, mesh::with_rotor_turned(m, drawn_rotor_angle(m, r.steps[k].rotor_angle)), a);
-    entries.push_back({step_time[k], name});
+  for (const FieldFrame& f : frames) {
+    const std::string name = fmt::format("field_{:04d}.vtu", f.step);
+    f.write(dir / name);
+    entries.push_back({f.time, name});
     files.push_back(name);
   }
   write_collection(dir / "field.pvd", entries);
@@ -131,49 +98,6 @@ void write_iron_loss(const std::filesystem::path& dir, const mesh::Mesh& m, cons
     out << "total," << fmt::format("{:.8g}", loss.total) << '\n';
   });
   write_cell_field_vtu(dir / "iron_loss.vtu", m, "iron_loss_W_per_m3", loss.density);
-}
-
-void write_motion_summary(const std::filesystem::path& path, const MotionRecord& rec) {
-  const MotionResult& r = *rec.result;
-  json j;
-  j["mesh"] = {{"nodes", rec.mesh->n_nodes()},
-               {"triangles", rec.mesh->n_triangles()},
-               {"sliding_circle_nodes", rec.mesh->sliding.stator_nodes.size() * rec.mesh->symmetry.copies},
-               {"sector_copies", rec.mesh->symmetry.copies},
-               {"anti_periodic", rec.mesh->symmetry.anti_periodic},
-               {"rotor_step_resolution_deg", 360.0 / static_cast<double>(rec.mesh->sliding.stator_nodes.size() *
-                                                                  static_cast<std::size_t>(rec.mesh->symmetry.copies))}};
-  j["torque"] = {{"arkkio", torque_json(r.arkkio)},
-                 {"circle", torque_json(r.circle)},
-                 {"virtual_work", torque_json(r.virtual_work)},
-                 {"method", "Arkkio: Maxwell stress averaged over the gap band (main value); circle: Maxwell stress "
-                            "on the mid-gap circle; virtual work: co-energy difference of the rotor turned one "
-                            "sliding-circle pitch either way, currents held"}};
-  j["cogging_period_deg"] = {{"expected", r.cogging_period_expected * kDeg},
-                             {"from_torque", r.cogging_period_measured * kDeg}};
-  j["load_angle_deg"] = rec.load_angle * kDeg;
-  if (!rec.sampling_warning.empty()) j["warnings"] = {rec.sampling_warning};
-  j["speed_rad_per_s"] = r.speed;
-  j["inductance_H"] = {{"apparent_mean", mean_inductances(r, false)},
-                       {"incremental_mean", mean_inductances(r, true)},
-                       {"method", "apparent: frozen (secant) permeability; incremental: differential permeability "
-                                  "of the converged state; flux linkage of 1 A per phase, 2D part only"}};
-  j["field"] = {{"fundamental_T", r.gap.metrics.mean_fundamental}, {"peak_field_ripple", r.gap.metrics.peak_ripple}};
-  j["solver"] = {{"unknowns", rec.stats.n_dofs},
-                 {"solves", rec.stats.n_solves},
-                 {"newton_iterations_per_solve", r.mean_newton_iterations},
-                 {"analyse_seconds", rec.stats.analyse_seconds},
-                 {"solve_seconds", rec.stats.solve_seconds}};
-  if (!r.iron_loss.empty()) {
-    json loss = json::object();
-    double total = 0.0;
-    for (const auto& [region, watts] : r.iron_loss) loss[region] = watts, total += watts;
-    j["iron_loss_W"] = {{"total", total},
-                        {"per_region", loss},
-                        {"method", "Steinmetz-type law per time harmonic and Cartesian component of B in each "
-                                   "triangle over one electrical period (a common approximation; no excess loss)"}};
-  }
-  write_summary_document(path, j.dump(), rec.version, rec.inputs_json, rec.seconds, rec.files);
 }
 
 }  // namespace tf::post

@@ -1,8 +1,9 @@
 #pragma once
-// Files of a rotor-motion study: the air-gap tables of any study, torque.csv, inductances.csv,
-// field files with the rotor drawn where it stands, and summary.json.
+// Files of a study solved step by step (torque.csv, inductances.csv, iron loss, field files with the
+// rotor drawn where it stands) and the field-series writer every study uses.
 
 #include <filesystem>
+#include <functional>
 #include <string>
 #include <utility>
 #include <vector>
@@ -17,18 +18,29 @@
 
 namespace tf::post {
 
-/// steps.csv, gap_field.csv, harmonics.csv, poles.csv, winding tables, torque.csv and
-/// inductances.csv; returns the names written.
-std::vector<std::string> write_motion_tables(const std::filesystem::path& dir, const MotionResult& r,
-                                             const mesh::Winding& w, double frequency);
+/// torque.csv: per step the rotor angle, torque by three methods, flux linkage per phase, dq flux
+/// linkages, back-EMF and Newton's iterations and residual.
+void write_torque_table(const std::filesystem::path& path, const MotionResult& r);
 
-/// field_NNNN.vtu for the given steps (fields: nodal A of each, in the same order) and field.pvd,
-/// whose time of step k is step_time[k]; each drawn with its rotor turned to where it stood.
-/// Returns the names written.
-std::vector<std::string> write_motion_fields(const std::filesystem::path& dir, const mesh::Mesh& m,
-                                             const MotionResult& r, const std::vector<int>& steps,
-                                             const std::vector<Eigen::VectorXd>& fields,
-                                             const std::vector<double>& step_time);
+/// inductances.csv: per step the apparent and incremental inductance matrices [H].
+void write_inductance_table(const std::filesystem::path& path, const MotionResult& r);
+
+/// One file of a field series: its step (the file is field_NNNN.vtu), its time in the collection
+/// and how to write it.
+struct FieldFrame {
+  int step = 0;
+  double time = 0.0;  ///< [s], or another monotone index (an eddy study's speed number)
+  std::function<void(const std::filesystem::path&)> write;
+};
+
+/// Writes every frame and field.pvd, the collection that lists them; returns the names written
+/// (none for no frames). The one field-file writer of every study.
+std::vector<std::string> write_field_series(const std::filesystem::path& dir, const std::vector<FieldFrame>& frames);
+
+/// One step's field file, nodal A (#nodes, rotor nodes in the rotor's frame) drawn with the rotor
+/// turned to rotor_angle [rad], where it stood.
+void write_position_field(const std::filesystem::path& path, const mesh::Mesh& m, const Eigen::VectorXd& field,
+                          double rotor_angle);
 
 /// The rotor angle [rad] at which a (sector) mesh draws a rotor that stood at rotor_angle: turned
 /// back by whole sectors into the stator's sector (the field there is the image of the field).
@@ -36,18 +48,5 @@ double drawn_rotor_angle(const mesh::Mesh& m, double rotor_angle);
 
 /// iron_loss.csv (per region [W]) and iron_loss.vtu (loss density per triangle [W/m^3]).
 void write_iron_loss(const std::filesystem::path& dir, const mesh::Mesh& m, const IronLoss& loss);
-
-struct MotionRecord {
-  std::string version, inputs_json;
-  double load_angle = 0.0;  ///< synchronous studies: as placed [rad, electrical]
-  std::string sampling_warning;  ///< why the steps may not resolve the torque ripple; empty if they do
-  const mesh::Mesh* mesh = nullptr;
-  const mesh::Winding* winding = nullptr;
-  const MotionResult* result = nullptr;
-  solver::MotionStats stats;
-  std::vector<std::pair<std::string, double>> seconds;
-  std::vector<std::string> files;
-};
-void write_motion_summary(const std::filesystem::path& path, const MotionRecord& r);
 
 }  // namespace tf::post

@@ -37,6 +37,7 @@ struct MotionResult {
   StudyResult gap;                   ///< air-gap field per step (currents and electrical angle filled in)
   std::vector<PositionStep> steps;
   TorqueStats arkkio, circle, virtual_work;
+  bool has_virtual_work = false;     ///< virtual_work was computed
   double speed = 0.0;                ///< mechanical [rad/s] of the back-EMF
   double cogging_period_expected = 0.0;  ///< 2π / LCM(Q, 2p) [rad] (common practice)
   double cogging_period_measured = 0.0;  ///< [rad]: the longest period the torque's spectrum shows; 0 if flat
@@ -47,5 +48,28 @@ struct MotionResult {
 /// Period [rad] of the strongest non-constant harmonic of a sequence sampled at equal steps over
 /// `span` [rad], taken as span / (its order); 0 when the sequence is constant to round-off.
 double dominant_period(const std::vector<double>& samples, double span);
+
+}  // namespace tf::post
+
+namespace tf::post {
+
+/// Where a step-by-step study's steps sit: what the dq transform and the EMF need.
+struct StepSpan {
+  int pole_pairs = 1;
+  double span = 0.0;          ///< mechanical angle [rad] the steps cover, periodically
+  double phase_a_axis = 0.0;  ///< electrical angle [rad] of phase A's axis (mesh::Winding::phase_a_axis)
+  double rotor_d_axis = 0.0;  ///< mechanical angle [rad] of the rotor's d axis at rest
+};
+
+/// Fills flux_d, flux_q (Park transform on the rotor's d axis) and back_emf (-dψ/dt at r.speed) of
+/// every step from its flux linkages: spectral differentiation when the steps cover whole
+/// electrical periods (ψ is then periodic over the span), central differences otherwise.
+void derive_flux_quantities(MotionResult& r, const StepSpan& s);
+
+/// Fills the torque statistics (Arkkio, circle, virtual work when `virtual_work`), the cogging
+/// period expected, 2π/LCM(Q, 2p) (common practice), and as measured in the Arkkio torque, and the
+/// mean Newton iterations per solve.
+void summarise_torque(MotionResult& r, int n_slots, int n_poles, double span, bool virtual_work, int n_solves,
+                      int n_iterations);
 
 }  // namespace tf::post

@@ -4,6 +4,10 @@
 #include <complex>
 #include <vector>
 
+#include <Eigen/Core>
+
+#include "solver/split_phase.hpp"
+
 namespace tf::post {
 
 /// Sequence components [A, peak phasors] of m phasors with phase shift delta (360°/m odd m,
@@ -23,5 +27,12 @@ struct Waves {
 };
 Waves rotating_waves(const std::vector<std::complex<double>>& phasors,
                      const std::vector<std::complex<double>>& unit_fundamentals);
+
+/// The series capacitance [F] of a split-phase circuit, between 1 nF and 10 mF, whose currents
+/// make the most nearly circular field: the least ratio of the smaller to the larger rotating
+/// wave, for the unit fundamentals c_p [T/A] of each phase (a logarithmic scan, then
+/// golden-section refinement). L: the two phases' inductance matrix [H].
+double best_series_capacitance(const solver::SplitPhase& s, double frequency, const Eigen::Matrix2d& L,
+                               const std::vector<std::complex<double>>& unit);
 
 }  // namespace tf::post

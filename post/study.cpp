@@ -21,7 +21,7 @@ void derive_gap_quantities(StepResult& s, double radius, int pole_pairs, int max
 }  // namespace
 
 StudyResult phase_sweep(const mesh::Mesh& m, const mesh::Winding& w, const solver::PhaseFields& fields,
-                        const solver::Supply& supply, const StudyPlan& plan) {
+                        const solver::Supply& supply, int n_steps_asked, const GapSampling& plan) {
   const int p = w.spec.pole_pairs();
   const int max_order = p * plan.max_harmonic;
   const GapOperators ops = gap_operators(m, plan.n_gap_points, max_order);
@@ -34,7 +34,7 @@ StudyResult phase_sweep(const mesh::Mesh& m, const mesh::Winding& w, const solve
   out.sample_angles = ops.angles;
   out.unit_fundamentals.resize(w.spec.n_phases);
   for (int k = 0; k < w.spec.n_phases; ++k) out.unit_fundamentals[k] = unit_harmonics(p, k);
-  const auto currents = solver::step_currents(supply, w.spec.n_phases, plan.n_steps);
+  const auto currents = solver::step_currents(supply, w.spec.n_phases, n_steps_asked);
   const int n_steps = static_cast<int>(currents.size());
   for (int k = 0; k < n_steps; ++k) {
     StepResult s;

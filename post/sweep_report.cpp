@@ -130,7 +130,7 @@ Page sweep_page(const SweepTable& t, const std::string& best_variant_note) {
   page.subtitle = "Sweep of " + std::to_string(t.rows.size()) + " variants, " + std::to_string(ok) + " ran";
   std::string varied;
   for (const auto& p : t.parameters) varied += (varied.empty() ? "" : ", ") + p;
-  Section study{"Study", {{"study file", t.study_file, ""}, {"base case", t.base_case, ""}, {"varied inputs", varied, ""},
+  Section study{"Study", {{"sweep file", t.sweep_file, ""}, {"base case", t.base_case, ""}, {"varied inputs", varied, ""},
                           {"variants", std::to_string(t.rows.size()), ""}, {"variants that ran", std::to_string(ok), ""}},
                 best_variant_note};
   if (t.rank_by >= 0 && t.rank_by < static_cast<int>(t.metrics.size())) {

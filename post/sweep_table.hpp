@@ -30,7 +30,7 @@ struct SweepRow {
 
 struct SweepTable {
   std::string title;                    ///< of the study
-  std::string study_file;               ///< as given on the command line
+  std::string sweep_file;               ///< as given on the command line
   std::string base_case;                ///< path of the base case
   std::vector<std::string> parameters;  ///< varied case keys, dotted ("stator.slot_opening")
   std::vector<MetricColumn> metrics;

@@ -8,14 +8,14 @@
 #include <set>
 #include <string>
 
-#include "app/case_reader.hpp"
+#include "input/case_reader.hpp"
 #include "mesh/build.hpp"
 #include "solver/dofs.hpp"
 
 using namespace tf;
 
 TEST_CASE("open boundary: the image disc's arc faces the boundary circle node by node") {
-  const app::Case c = app::read_case(std::string(TF_SOURCE_DIR) + "/cases/team30a_three_phase.toml");
+  const input::Case c = input::read_case(std::string(TF_SOURCE_DIR) + "/cases/team30a_three_phase.toml");
   REQUIRE(c.geometry.stator.open_boundary);
   const double r = c.geometry.stator.boundary_radius;
   const mesh::Mesh m = mesh::build(c.geometry, mesh::slot_layers(c.winding), {1.0});

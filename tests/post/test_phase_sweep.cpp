@@ -10,7 +10,6 @@
 #include "post/study.hpp"
 #include "solver/phase_fields.hpp"
 #include "support/sample_geometry.hpp"
-#include "support/study_plan.hpp"
 
 using namespace tf;
 
@@ -36,7 +35,7 @@ Study run(const mesh::Geometry& g, int phases, int layers, int pitch, double mu_
   const solver::PhaseFields f = solver::solve_phase_fields(m, w, {mu_iron, mu_iron, mu_iron});
   solver::Supply supply;
   supply.peak_current = 5.0;
-  return {w, post::phase_sweep(m, w, f, supply, testing::study_plan(36, 25))};
+  return {w, post::phase_sweep(m, w, f, supply, 36, {720, 25})};
 }
 
 double harmonic_ratio(const post::StepResult& s, int order) { return std::abs(s.harmonics(order)) / std::abs(s.fundamental); }

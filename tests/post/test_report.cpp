@@ -179,8 +179,15 @@ TEST_CASE("text is escaped and the caution heads every page") {
   const std::string caution = post::html_escape(post::kSafetyCaution);
   post::ReportContext x{"case", "phase_angles", "the whole cross-section", "{}", 2, 0.93, {}};
   post::SweepTable sweep;
-  for (const post::Page& p : {post::Page{}, post::phase_study_page(x, {}), post::motion_study_page(x, {}),
-                              post::eddy_study_page(x, {}), post::sweep_page(sweep, "")}) {
+  const post::StudyResult field;
+  const post::MotionResult motion;
+  const post::EddyResult eddy;
+  post::RunRecord bodies;
+  bodies.field = &field;
+  bodies.motion = &motion;
+  bodies.eddy = &eddy;
+  bodies.field_rotates = bodies.rotor_turns = true;
+  for (const post::Page& p : {post::Page{}, post::study_page(x, {}), post::study_page(x, bodies), post::sweep_page(sweep, "")}) {
     const std::string h = post::render_html(p);
     CHECK(h.find(caution) != std::string::npos);
     CHECK(h.find(caution) < h.find("<h2"));  // at the top, before any section
@@ -217,7 +224,7 @@ TEST_CASE("a zipped sweep draws each metric as one curve through every variant, 
 TEST_CASE("a sweep's report: ranked table with links, failed rows with their message, a figure per metric and input") {
   post::SweepTable t;
   t.title = "Slot opening study";
-  t.study_file = "studies/opening.toml";
+  t.sweep_file = "studies/opening.toml";
   t.base_case = "cases/pump24_three_phase.toml";
   t.parameters = {"stator.slot.opening", "stator.slot.shape"};
   t.metrics = {{"fundamental_T", "B_r fundamental", "T", false},

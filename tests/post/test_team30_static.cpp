@@ -11,13 +11,12 @@
 #include <numbers>
 #include <string>
 
-#include "app/case_reader.hpp"
+#include "input/case_reader.hpp"
 #include "mesh/build.hpp"
 #include "mesh/winding.hpp"
 #include "post/study.hpp"
 #include "solver/flux_linkage.hpp"
 #include "solver/phase_fields.hpp"
-#include "support/study_plan.hpp"
 
 using namespace tf;
 
@@ -33,7 +32,7 @@ constexpr double kPeakMax = 0.090679;      // T, and at its highest
 constexpr double kFluxPerTurn = 5.7017e-3;  // Wb per metre, phase A, one turn, at wt = 0
 
 struct Team30 {
-  app::Case c;
+  input::Case c;
   mesh::Mesh m;
   mesh::Winding w;
   solver::PhaseFields f;
@@ -46,11 +45,11 @@ struct Team30 {
 /// elements converge on the reference).
 Team30 solve(int n_steps) {
   Team30 t;
-  t.c = app::read_case(std::string(TF_SOURCE_DIR) + "/cases/team30a_three_phase.toml");
+  t.c = input::read_case(std::string(TF_SOURCE_DIR) + "/cases/team30a_three_phase.toml");
   t.m = mesh::build(t.c.geometry, mesh::slot_layers(t.c.winding), {2.0});
   t.w = mesh::lay_out(t.c.winding, t.c.geometry.stator);
   t.f = solver::solve_phase_fields(t.m, t.w, t.c.materials);
-  t.r = post::phase_sweep(t.m, t.w, t.f, t.c.supply, testing::study_plan(n_steps, 25));
+  t.r = post::phase_sweep(t.m, t.w, t.f, t.c.supply, n_steps, {720, 25});
   return t;
 }
 

@@ -13,7 +13,6 @@
 #include "post/study.hpp"
 #include "solver/phase_fields.hpp"
 #include "support/sample_geometry.hpp"
-#include "support/study_plan.hpp"
 #include "support/winding_spec.hpp"
 
 using namespace tf;
@@ -77,7 +76,7 @@ TEST_CASE("two coil pairs switched through four DC states: the axis steps a quar
   solver::Supply dc;
   dc.kind = solver::SupplyKind::stepped_dc;
   dc.states = {{1.0, 0.0}, {0.0, 1.0}, {-1.0, 0.0}, {0.0, -1.0}};
-  const auto r = post::phase_sweep(s.mesh, s.winding, s.fields, dc, testing::study_plan(4, 9));
+  const auto r = post::phase_sweep(s.mesh, s.winding, s.fields, dc, 4, {720, 9});
   REQUIRE(r.steps.size() == 4);
   for (int k = 0; k < 4; ++k) {
     const double step = std::arg(r.steps[(k + 1) % 4].fundamental / r.steps[k].fundamental) * 180 / kPi;
@@ -94,11 +93,11 @@ TEST_CASE("two-phase winding, currents 90 and 60 degrees apart: backward/forward
   solver::Supply supply;
   supply.kind = solver::SupplyKind::phasors;
   supply.phasors = {std::polar(5.0, 0.0), std::polar(5.0, -kPi / 2)};
-  const auto balanced = post::phase_sweep(s.mesh, s.winding, s.fields, supply, testing::study_plan(36, 9));
+  const auto balanced = post::phase_sweep(s.mesh, s.winding, s.fields, supply, 36, {720, 9});
   CHECK(balanced.metrics.backward_forward_ratio < 1e-3);
   CHECK(balanced.metrics.amplitude_ripple < 0.01);
   supply.phasors[1] = std::polar(5.0, -kPi / 3);
-  const auto elliptic = post::phase_sweep(s.mesh, s.winding, s.fields, supply, testing::study_plan(36, 9));
+  const auto elliptic = post::phase_sweep(s.mesh, s.winding, s.fields, supply, 36, {720, 9});
   CHECK(elliptic.metrics.backward_forward_ratio == doctest::Approx(std::tan(kPi / 12)).epsilon(2e-3).scale(0));
   // The amplitude swings between (f + b) and (f - b): ripple 2b / mean.
   CHECK(elliptic.metrics.amplitude_ripple > 0.4);

@@ -1,0 +1,53 @@
+#include "study/slip_study.hpp"
+
+#include <numbers>
+
+namespace tf::study {
+namespace {
+
+bool all_zero(const std::vector<std::complex<double>>& currents) {
+  for (const auto& i : currents)
+    if (i != 0.0) return false;
+  return true;
+}
+
+}  // namespace
+
+solver::Cage cage_of(const input::Case& c) {
+  const mesh::RotorSlots& bars = c.geometry.rotor.slots;
+  return {bars.count, c.winding.pole_pairs(), bars.width * bars.depth, c.materials.bar_sigma, c.stack_length};
+}
+
+SlipStudy solve_slip_study(const input::Case& c, const mesh::Mesh& m, const mesh::Winding& w, solver::EddyStats& stats) {
+  SlipStudy out;
+  out.materials = c.materials;
+  if (c.end_rings && c.geometry.rotor.kind == mesh::RotorKind::slotted) {
+    out.end_ring_factor = solver::end_ring_factor(cage_of(c), *c.end_rings);
+    out.materials.bar_sigma *= out.end_ring_factor;
+  }
+  const solver::SlipSystem system = solver::assemble_slip(m, w, out.materials);
+  out.components = post::rotating_components(solver::supply_phasors(c.supply, c.winding.n_phases));
+  const double omega = 2 * std::numbers::pi * c.supply.frequency;
+  const int p = w.spec.pole_pairs();
+  // Both components of every speed in one list, so one symbolic analysis serves them all. A
+  // component without current (the backward one of a balanced supply) is not solved.
+  std::vector<solver::SlipProblem> problems;
+  for (double speed : c.study.rotor_speeds) {
+    const double s = post::forward_slip(p, c.supply.frequency, speed);
+    if (!all_zero(out.components.forward)) problems.push_back({out.components.forward, s * omega});
+    if (!all_zero(out.components.backward)) problems.push_back({out.components.backward, (2.0 - s) * omega});
+  }
+  const auto fields = solver::solve_slip(m, system, problems, stats);
+  const post::SlipInputs in{&m, &w, solver::slip_conductivity(m, out.materials), solver::slip_on_rotor(m),
+                            c.supply.frequency, c.stack_length};
+  const Eigen::VectorXcd none = Eigen::VectorXcd::Zero(m.n_nodes());
+  std::size_t next = 0;
+  for (double speed : c.study.rotor_speeds) {
+    out.forward.push_back(all_zero(out.components.forward) ? none : fields[next++]);
+    out.backward.push_back(all_zero(out.components.backward) ? none : fields[next++]);
+    out.rows.push_back(post::evaluate_slip_speed(in, speed, out.components, out.forward.back(), out.backward.back()));
+  }
+  return out;
+}
+
+}  // namespace tf::study

@@ -1,0 +1,237 @@
+// Magnetostatic studies solved one step at a time: the rotor turned to each step's position
+// (synchronous, cogging, rotor sweep) or at rest (a phase-angle study with saturating iron), the
+// currents of the step impressed, Newton's method where B-H curves are given.
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <memory>
+#include <numbers>
+#include <optional>
+
+#include <fmt/format.h>
+
+#include "post/flux_density.hpp"
+#include "post/iron_loss.hpp"
+#include "post/study.hpp"
+#include "post/torque.hpp"
+#include "solver/errors.hpp"
+#include "solver/flux_linkage.hpp"
+#include "solver/motion.hpp"
+#include "solver/stopwatch.hpp"
+#include "study/motion_plan.hpp"
+#include "study/solved.hpp"
+
+namespace tf::study {
+namespace {
+
+struct Context {
+  const input::Case& c;
+  const mesh::Mesh& m;
+  const mesh::Winding& w;
+  const MotionSchedule& plan;
+};
+
+/// The study's speed [rad/s]: as given, or synchronous with the supply.
+double study_speed(const input::Case& c) {
+  if (c.study.speed != 0.0) return c.study.speed;
+  return 2 * std::numbers::pi * c.supply.frequency / c.winding.pole_pairs();
+}
+
+/// Flux linkage per phase [Wb] of one nodal field.
+std::vector<double> phase_flux(const Context& x, const Eigen::VectorXd& a) {
+  const Eigen::VectorXd psi = solver::flux_linkage(x.m, x.w, a, x.c.stack_length).col(0);
+  return {psi.data(), psi.data() + psi.size()};
+}
+
+/// Torque by co-energy [N m]: the rotor turned one pitch either way with the currents held.
+double virtual_work(const Context& x, solver::MotionSolver& s, int k, const solver::PositionField& f) {
+  const auto& i = x.plan.currents[k];
+  const double plus = s.coenergy(f.shift + 1, i);
+  const double minus = s.coenergy(f.shift - 1, i);
+  return x.c.stack_length * post::virtual_work_torque(minus, plus, solver::sliding_pitch(x.m));
+}
+
+/// The field of step k; a failure names the step, the rotor angle and the instant.
+solver::PositionField solve_named(const Context& x, solver::MotionSolver& s, int k) {
+  try {
+    return s.solve(x.plan.shift[k], x.plan.currents[k]);
+  } catch (const solver::SolveError& e) {
+    constexpr double deg = 180.0 / std::numbers::pi;
+    throw solver::SolveError(fmt::format("step {} (rotor at {:.3f} deg, electrical angle {:.2f} deg): {}", k,
+                                         x.plan.rotor_angle[k] * deg, x.plan.electrical_angle[k] * deg, e.what()));
+  }
+}
+
+/// Solves step k (warm-started from the previous field) and everything that needs its solver state.
+post::PositionStep solve_step(const Context& x, solver::MotionSolver& s, int k, Eigen::VectorXd& field,
+                              post::StepResult& gap) {
+  const int p = x.c.winding.pole_pairs();
+  const bool turns = input::rotor_turns(x.c.study.kind);
+  const solver::PositionField f = solve_named(x, s, k);
+  field = f.a;
+  // B_θ on the circle reads the rotor-side triangles, which face other chords once the rotor turned.
+  const post::GapOperators ops = post::gap_operators(x.m, x.c.study.n_gap_points, p * x.c.study.max_harmonic, f.shift);
+  gap = post::sample_gap_field(ops, f.a, p, p * x.c.study.max_harmonic);
+  gap.electrical_angle = x.plan.electrical_angle[k];
+  gap.currents = x.plan.currents[k];
+  post::PositionStep step;
+  step.rotor_angle = x.plan.rotor_angle[k];
+  step.newton_iterations = f.newton.iterations;
+  step.newton_residual = f.relative_residual;
+  step.torque_arkkio = post::arkkio_torque_static(x.m, f.a, x.c.stack_length);
+  step.torque_circle = post::circle_torque(ops, f.a, x.c.stack_length);
+  step.flux_linkage = phase_flux(x, f.a);
+  step.inductance_frozen = solver::flux_linkage(x.m, x.w, s.frozen_unit_fields(), x.c.stack_length);
+  step.inductance_incremental = solver::flux_linkage(x.m, x.w, s.incremental_unit_fields(), x.c.stack_length);
+  step.torque_virtual_work = turns && x.c.study.virtual_work ? virtual_work(x, s, k, f)
+                                                             : std::numeric_limits<double>::quiet_NaN();
+  return step;
+}
+
+/// Iron loss needs B over exactly one electrical period in equal time steps, and coefficients.
+std::optional<post::FluxHistory> flux_history(const input::Case& c, const mesh::Mesh& m, const MotionSchedule& plan) {
+  if (!c.materials.stator_iron_loss && !c.materials.rotor_iron_loss) return std::nullopt;
+  const int p = c.winding.pole_pairs();
+  if (c.study.kind == input::StudyKind::rotor_sweep) return std::nullopt;  // the currents stand still
+  if (std::abs(plan.span * p - 2 * std::numbers::pi) > 1e-9) return std::nullopt;
+  post::FluxHistory h;
+  const int n = static_cast<int>(plan.shift.size());
+  h.bx.resize(m.n_triangles(), n);
+  h.by.resize(m.n_triangles(), n);
+  h.frequency = c.study.kind == input::StudyKind::cogging ? p * study_speed(c) / (2 * std::numbers::pi)
+                                                           : c.supply.frequency;
+  return h;
+}
+
+/// Steinmetz coefficients per region: the stator's in stator iron, the rotor's in rotor iron.
+std::vector<post::SteinmetzCoefficients> loss_coefficients(const input::Case& c, const mesh::Mesh& m) {
+  const auto convert = [](const std::optional<solver::IronLossData>& d) {
+    return d ? post::SteinmetzCoefficients{d->hysteresis, d->exponent, d->eddy, d->density}
+             : post::SteinmetzCoefficients{};
+  };
+  std::vector<post::SteinmetzCoefficients> out;
+  for (const auto& region : m.regions)
+    out.push_back(region.kind == mesh::RegionKind::stator_iron ? convert(c.materials.stator_iron_loss)
+                  : region.kind == mesh::RegionKind::rotor_iron ? convert(c.materials.rotor_iron_loss)
+                                                                : post::SteinmetzCoefficients{});
+  return out;
+}
+
+/// Every step solved in order; the nodal fields of the steps in `kept` are returned in `kept_fields`
+/// and, with a history, every triangle's B at every step.
+post::MotionResult solve_steps(const Context& x, solver::MotionSolver& s, const std::vector<int>& kept,
+                               std::vector<Eigen::VectorXd>& kept_fields, post::FluxHistory* history,
+                               Progress& progress) {
+  post::MotionResult r;
+  for (int j = 0; j < x.c.study.n_gap_points; ++j)
+    r.gap.sample_angles.push_back(2 * std::numbers::pi * j / x.c.study.n_gap_points);
+  const int n = static_cast<int>(x.plan.shift.size());
+  Eigen::VectorXd field;
+  for (int k = 0; k < n; ++k) {
+    progress.count(input::rotor_turns(x.c.study.kind) ? "solving rotor positions" : "solving steps", k, n);
+    post::StepResult gap;
+    r.steps.push_back(solve_step(x, s, k, field, gap));
+    r.gap.steps.push_back(std::move(gap));
+    if (std::find(kept.begin(), kept.end(), k) != kept.end()) kept_fields.push_back(field);
+    if (history) {
+      const Eigen::MatrixX2d b = post::flux_density(x.m, field);
+      history->bx.col(k) = b.col(0);
+      history->by.col(k) = b.col(1);
+    }
+  }
+  post::finish_rotation_metrics(r.gap, x.c.winding.pole_pairs());
+  return r;
+}
+
+/// Time [s] of step k for the field collection: the supply's time when the currents advance, the
+/// time at the study's speed otherwise.
+double step_time(const input::Case& c, const MotionSchedule& plan, int k) {
+  const bool supply_time = c.study.kind == input::StudyKind::synchronous || c.study.kind == input::StudyKind::phase_angles;
+  return supply_time ? plan.electrical_angle[k] / (2 * std::numbers::pi * c.supply.frequency)
+                     : plan.rotor_angle[k] / study_speed(c);
+}
+
+/// Why the steps may not resolve the torque's slot ripple; empty when they do. With fewer than four
+/// steps per cogging period the ripple is aliased and can bias even the mean (measured on the magnet
+/// demo: 36 steps per period gave a mean 3.6 % high, 72 agreed with the dq torque within 0.05 %).
+std::string sampling_warning(const post::MotionResult& r, const MotionSchedule& plan) {
+  const double per = r.cogging_period_expected / (plan.span / static_cast<double>(plan.shift.size()));
+  if (per >= 4.0) return {};
+  return fmt::format("{:.3g} steps per cogging period ({:.4g} deg): the torque's slot ripple is undersampled and its "
+                     "mean and ripple may be aliased; use at least {} steps",
+                     per, r.cogging_period_expected * 180 / std::numbers::pi,
+                     static_cast<int>(std::ceil(4.0 * plan.shift.size() / per)));
+}
+
+/// The steps whose nodal fields are kept: the field files' and the report's, in step order.
+std::vector<int> kept_steps(std::vector<int> file_steps, int report_step) {
+  if (std::find(file_steps.begin(), file_steps.end(), report_step) == file_steps.end()) file_steps.push_back(report_step);
+  std::sort(file_steps.begin(), file_steps.end());
+  return file_steps;
+}
+
+}  // namespace
+
+Solved solve_step_by_step(const StudyInput& in) {
+  const input::Case& c = in.c;
+  Solved out;
+  solver::Stopwatch clock;
+  const MotionSchedule plan = plan_motion(c, in.m, in.w);
+  const Context x{c, in.m, in.w, plan};
+  solver::MotionSolver solver(in.m, in.w, c.materials, solver::magnet_layout(c.geometry.rotor));
+  const std::vector<int> files = field_steps(in, c.study.n_steps);
+  const std::vector<int> kept = kept_steps(files, in.options.report_step);
+  std::vector<Eigen::VectorXd> fields;
+  std::optional<post::FluxHistory> history = flux_history(c, in.m, plan);
+  post::MotionResult r = solve_steps(x, solver, kept, fields, history ? &*history : nullptr, in.progress);
+  r.speed = study_speed(c);
+  const solver::MotionStats stats = solver.stats();
+  post::derive_flux_quantities(r, {c.winding.pole_pairs(), plan.span, in.w.phase_a_axis, plan.rotor_d_axis});
+  post::summarise_torque(r, c.geometry.stator.n_slots, c.winding.n_poles, plan.span,
+                         input::rotor_turns(c.study.kind) && c.study.virtual_work, stats.n_solves, stats.n_iterations);
+  out.seconds.emplace_back("solve", clock.lap());
+
+  std::optional<post::IronLoss> loss;
+  if (history) {
+    loss = post::iron_loss(in.m, *history, loss_coefficients(c, in.m), c.stack_length);
+    for (std::size_t i = 0; i < in.m.regions.size(); ++i)
+      if (loss->region_loss[i] > 0.0) r.iron_loss.push_back({in.m.regions[i].name, loss->region_loss[i]});
+    out.write_extra = [&m = in.m, loss = *loss](const std::filesystem::path& dir) {
+      post::write_iron_loss(dir, m, loss);
+      return std::vector<std::string>{"iron_loss.csv", "iron_loss.vtu"};
+    };
+  }
+  out.seconds.emplace_back("post", clock.lap());
+
+  const auto field_of = [&](int k) { return fields[std::find(kept.begin(), kept.end(), k) - kept.begin()]; };
+  for (int k : files)
+    out.frames.push_back({k, step_time(c, plan, k), [&m = in.m, a = field_of(k), angle = r.steps[k].rotor_angle](
+                                                        const std::filesystem::path& path) {
+                            post::write_position_field(path, m, a, angle);
+                          }});
+  const int shown = in.options.report_step;
+  const double angle = r.steps[shown].rotor_angle;
+  // |B| does not depend on the sign the image of an anti-periodic sector carries.
+  out.drawn = std::make_shared<const mesh::Mesh>(mesh::with_rotor_turned(in.m, post::drawn_rotor_angle(in.m, angle)));
+  out.section = {out.drawn.get(), post::flux_density_magnitude(in.m, field_of(shown)),
+                 input::rotor_turns(c.study.kind)
+                     ? fmt::format("step {} (rotor at {:.4g}° mech.)", shown, angle * 180 / std::numbers::pi)
+                     : fmt::format("step {} (ωt = {:.4g}° el.)", shown, plan.electrical_angle[shown] * 180 / std::numbers::pi)};
+
+  out.rotor_turns = input::rotor_turns(c.study.kind);
+  // The stator field turns when the currents advance over the steps: phase angles and synchronous.
+  out.field_rotates = c.study.kind == input::StudyKind::phase_angles || c.study.kind == input::StudyKind::synchronous;
+  out.load_angle = plan.load_angle;
+  if (out.rotor_turns)
+    if (std::string w = sampling_warning(r, plan); !w.empty()) out.warnings.push_back(std::move(w));
+  out.solver = {"CHOLMOD supernodal Cholesky per step; Newton-Raphson with the consistent Jacobian where B-H curves "
+                "are given",
+                stats.n_dofs, -1, -1, stats.n_solves, r.mean_newton_iterations,
+                {{"analyse", stats.analyse_seconds}, {"solve", stats.solve_seconds}}};
+  out.field = r.gap;
+  out.motion = std::move(r);
+  return out;
+}
+
+}  // namespace tf::study

@@ -1,0 +1,77 @@
+#include "sweep/sweep_metrics.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <numeric>
+
+#include <fmt/format.h>
+#include <nlohmann/json.hpp>
+
+#include "input/input_error.hpp"
+
+namespace tf::sweep {
+namespace {
+
+using json = nlohmann::json;
+
+/// Where each column's number stands in summary.json (JSON pointers), in column order.
+const std::vector<std::string>& metric_pointers() {
+  static const std::vector<std::string> p = {
+      "/field/fundamental_T",       "/field/amplitude_ripple",          "/field/peak_field_ripple",
+      "/field/rotation_uniformity_deg", "/field/backward_forward_ratio", "/field/harmonic_distortion",
+      "/winding/winding_factor",    "/torque/arkkio/mean_Nm",           "/torque/arkkio/ripple"};
+  return p;
+}
+
+}  // namespace
+
+std::vector<post::MetricColumn> sweep_metric_columns() {
+  return {{"fundamental_T", "B_r fundamental", "T", false},
+          {"amplitude_ripple", "amplitude ripple", "ratio", true},
+          {"peak_field_ripple", "peak-field ripple", "ratio", true},
+          {"rotation_uniformity_deg", "rotation uniformity (worst step deviation)", "deg", true},
+          {"backward_forward_ratio", "backward/forward ratio", "ratio", true},
+          {"harmonic_distortion", "harmonic distortion", "ratio", true},
+          {"winding_factor", "winding factor", "", false},
+          {"torque_mean_Nm", "torque mean (Arkkio)", "N·m", false},
+          {"torque_ripple", "torque ripple (Arkkio)", "ratio", true}};
+}
+
+std::vector<double> read_metrics(const std::string& summary_json) {
+  const json j = json::parse(summary_json);
+  std::vector<double> values;
+  for (const auto& pointer : metric_pointers()) {
+    const json::json_pointer at(pointer);
+    values.push_back(j.contains(at) && j.at(at).is_number() ? j.at(at).get<double>() : post::kNoValue);
+  }
+  return values;
+}
+
+void rank_rows(post::SweepTable& t, const std::string& spec) {
+  const auto colon = spec.find(':');
+  const std::string name = spec.substr(0, colon), direction = colon == std::string::npos ? "" : spec.substr(colon + 1);
+  std::vector<std::string> keys;
+  for (const auto& m : t.metrics) keys.push_back(m.key);
+  const auto it = std::find(keys.begin(), keys.end(), name);
+  if (it == keys.end())
+    throw input::InputError(fmt::format("rank by '{}': no such metric; expected one of: {}", spec, fmt::join(keys, ", ")));
+  if (!direction.empty() && direction != "lowest" && direction != "highest")
+    throw input::InputError(fmt::format("rank by '{}': unknown direction '{}'; expected name, name:lowest or name:highest",
+                                 spec, direction));
+  t.rank_by = static_cast<int>(it - keys.begin());
+  auto& column = t.metrics[static_cast<std::size_t>(t.rank_by)];
+  if (!direction.empty()) column.lower_is_better = direction == "lowest";
+  const auto col = static_cast<std::size_t>(t.rank_by);
+  std::vector<std::size_t> order;
+  for (std::size_t i = 0; i < t.rows.size(); ++i) {
+    t.rows[i].rank = 0;
+    if (t.rows[i].status == "ok" && std::isfinite(t.rows[i].metrics[col])) order.push_back(i);
+  }
+  std::stable_sort(order.begin(), order.end(), [&](std::size_t a, std::size_t b) {
+    const double x = t.rows[a].metrics[col], y = t.rows[b].metrics[col];
+    return column.lower_is_better ? x < y : x > y;
+  });
+  for (std::size_t r = 0; r < order.size(); ++r) t.rows[order[r]].rank = static_cast<int>(r + 1);
+}
+
+}  // namespace tf::sweep
