@@ -147,7 +147,7 @@ std::string case_to_json(const Case& c) {
       {"supply", supply_json(c.supply)},
       {"study",
        {{"kind", study_kind_name(c.study.kind)},
-        {"rotor_speeds_rad_s", c.study.rotor_speeds},
+        {"rotor_speeds_rad_per_s", c.study.rotor_speeds},
         {"load_angle_deg", c.study.load_angle * 180.0 / std::numbers::pi},
         {"rotor_span_deg", c.study.rotor_span * 180.0 / std::numbers::pi},
         {"current_angle_deg", c.study.current_angle * 180.0 / std::numbers::pi},

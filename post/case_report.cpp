@@ -22,7 +22,7 @@ std::string num(double v, int digits = 4) { return svg::format_number(v, digits)
 /// Unit of a key by its suffix, as case_json and our tables spell them.
 std::pair<std::string, std::string> split_unit(const std::string& key) {
   static const std::pair<const char*, const char*> suffixes[] = {
-      {"_S_per_m", "S/m"}, {"_kg_per_m3", "kg/m³"}, {"_A_per_m", "A/m"}, {"_rad_s", "rad/s"}, {"_rpm", "rpm"},
+      {"_S_per_m", "S/m"}, {"_kg_per_m3", "kg/m³"}, {"_A_per_m", "A/m"}, {"_rad_per_s", "rad/s"}, {"_rpm", "rpm"},
       {"_deg", "°"},       {"_Hz", "Hz"},           {"_m2", "m²"},       {"_ohm", "Ω"},       {"_slots", "slots"},
       {"_m", "m"},         {"_T", "T"},             {"_H", "H"},         {"_A", "A"},         {"_V", "V"}};
   for (const auto& [suffix, unit] : suffixes) {

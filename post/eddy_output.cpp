@@ -19,7 +19,7 @@ double rpm(double rad_s) { return rad_s * 30.0 / std::numbers::pi; }
 void write_torque_speed(const std::filesystem::path& path, const std::vector<SpeedResult>& rows, int) {
   write_atomically(path, [&](std::ostream& o) {
     const bool slip = !rows.front().components.empty();
-    o << "speed_rad_s,speed_rpm,slip,torque_N_m," << (slip ? "torque_gap_power_N_m" : "torque_lorentz_N_m")
+    o << "speed_rad_per_s,speed_rpm,slip,torque_N_m," << (slip ? "torque_gap_power_N_m" : "torque_lorentz_N_m")
       << ",rotor_loss_W,rotor_loss_balance_W,stator_loss_W,input_power_W,mechanical_power_W";
     const std::size_t m = rows.front().emf_rms.size();
     for (std::size_t k = 0; k < m; ++k) o << ",emf_" << phase_name(static_cast<int>(k)) << "_V_rms";

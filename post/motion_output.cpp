@@ -19,7 +19,7 @@ constexpr double kDeg = 180.0 / std::numbers::pi;
 void write_torque_table(const std::filesystem::path& path, const MotionResult& r) {
   write_atomically(path, [&](std::ostream& out) {
     const int n = static_cast<int>(r.steps.front().flux_linkage.size());
-    out << "step,rotor_angle_deg,torque_arkkio_Nm,torque_circle_Nm,torque_virtual_work_Nm";
+    out << "step,rotor_angle_deg,torque_arkkio_N_m,torque_circle_N_m,torque_virtual_work_N_m";
     for (int k = 0; k < n; ++k) out << ",flux_linkage_" << phase_name(k) << "_Wb";
     out << ",flux_d_Wb,flux_q_Wb";
     for (int k = 0; k < n; ++k) out << ",emf_" << phase_name(k) << "_V";

@@ -92,7 +92,7 @@ json solver_summary(const SolverSummary& s) {
 // ---- rotor motion and step-by-step solutions ----
 
 json torque_json(const TorqueStats& t) {
-  return {{"mean_Nm", t.mean}, {"min_Nm", t.min}, {"max_Nm", t.max}, {"peak_to_peak_Nm", t.peak_to_peak},
+  return {{"mean_N_m", t.mean}, {"min_N_m", t.min}, {"max_N_m", t.max}, {"peak_to_peak_N_m", t.peak_to_peak},
           {"ripple", std::isnan(t.ripple) ? json(nullptr) : json(t.ripple)}};
 }
 
@@ -152,7 +152,7 @@ json headline(const std::vector<SpeedResult>& rows) {
     if (std::abs(r.torque) > std::abs(peak->torque)) peak = &r;
     if (r.rotor_speed == 0.0) standstill = &r;
   }
-  json j = {{"peak_torque_N_m", peak->torque}, {"peak_torque_speed_rad_s", peak->rotor_speed}};
+  json j = {{"peak_torque_N_m", peak->torque}, {"peak_torque_speed_rad_per_s", peak->rotor_speed}};
   if (standstill) j["locked_rotor_torque_N_m"] = standstill->torque;
   return j;
 }

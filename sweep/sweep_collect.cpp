@@ -153,8 +153,15 @@ int collect_sweep(const CollectOptions& o, std::ostream& out) {
                      t.rows.size(), ok, t.rows.size() - ok, (o.out_dir / "sweep_summary.csv").string(),
                      (o.out_dir / "report.html").string(),
                      best ? fmt::format(", best variant copied to {}", (o.out_dir / "best_variant").string()) : "");
+  // A metric no finished variant reports (e.g. torque of a study whose rotor does not turn) ranks
+  // nothing: say so and fail, rather than leave an empty ranking that looks like a result.
+  const bool unranked = best == nullptr && ok > 0;
+  if (unranked)
+    out << fmt::format("error: rank by {}: none of the {} variants that ran reports it (their study does not "
+                       "produce it); sweep_summary.csv lists the metrics they do report\n",
+                       t.metrics[static_cast<std::size_t>(t.rank_by)].key, ok);
   out << post::kSafetyCaution << '\n';
-  return ok == t.rows.size() ? 0 : 1;
+  return ok == t.rows.size() && !unranked ? 0 : 1;
 }
 
 }  // namespace tf::sweep

@@ -19,7 +19,7 @@ const std::vector<std::string>& metric_pointers() {
   static const std::vector<std::string> p = {
       "/field/fundamental_T",       "/field/amplitude_ripple",          "/field/peak_field_ripple",
       "/field/rotation_uniformity_deg", "/field/backward_forward_ratio", "/field/harmonic_distortion",
-      "/winding/winding_factor",    "/torque/arkkio/mean_Nm",           "/torque/arkkio/ripple"};
+      "/winding/winding_factor",    "/torque/arkkio/mean_N_m",           "/torque/arkkio/ripple"};
   return p;
 }
 
@@ -33,7 +33,7 @@ std::vector<post::MetricColumn> sweep_metric_columns() {
           {"backward_forward_ratio", "backward/forward ratio", "ratio", true},
           {"harmonic_distortion", "harmonic distortion", "ratio", true},
           {"winding_factor", "winding factor", "", false},
-          {"torque_mean_Nm", "torque mean (Arkkio)", "N·m", false},
+          {"torque_mean_N_m", "torque mean (Arkkio)", "N·m", false},
           {"torque_ripple", "torque ripple (Arkkio)", "ratio", true}};
 }
 

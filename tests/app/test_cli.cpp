@@ -141,7 +141,7 @@ TEST_CASE("every case in cases/ runs headless on a coarse mesh and gives a sound
     }
     if (s.contains("eddy_currents")) {  // a time-harmonic study: checked against TEAM 30a in test_team30a.cpp
       CHECK(fs::exists(out / "torque_speed.csv"));
-      CHECK(s["eddy_currents"]["speeds"].size() == s["inputs"]["study"]["rotor_speeds_rad_s"].size());
+      CHECK(s["eddy_currents"]["speeds"].size() == s["inputs"]["study"]["rotor_speeds_rad_per_s"].size());
       continue;
     }
     // A rotor at rest turns nothing: no torque table, whatever the iron.

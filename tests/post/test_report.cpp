@@ -229,7 +229,7 @@ TEST_CASE("a sweep's report: ranked table with links, failed rows with their mes
   t.parameters = {"stator.slot.opening", "stator.slot.shape"};
   t.metrics = {{"fundamental_T", "B_r fundamental", "T", false},
                {"distortion_percent", "harmonic distortion", "%", true},
-               {"torque_Nm", "torque", "N·m", false}};  // NaN everywhere: no figure
+               {"torque_N_m", "torque", "N·m", false}};  // NaN everywhere: no figure
   const double nan = post::kNoValue;
   t.rows = {{"v1", {"0.002", "semi_closed"}, "ok", "", {0.66, 26.0, nan}, 3},
             {"v2", {"0.003", "semi_closed"}, "ok", "", {0.65, 24.0, nan}, 2},

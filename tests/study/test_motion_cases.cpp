@@ -78,10 +78,10 @@ TEST_CASE("synchronous magnet motor: three torque methods agree, fluxes balanced
   const auto steps = read_columns(out / "steps.csv");
   // Arkkio's band average, the Maxwell stress on one circle and the co-energy difference are exact
   // for the exact field and differ only by discretisation (A. Arkkio 1987); the issue asks for 2 %.
-  const double arkkio = mean(t.at("torque_arkkio_Nm"));
+  const double arkkio = mean(t.at("torque_arkkio_N_m"));
   CHECK(arkkio > 1.0);
-  CHECK(std::abs(mean(t.at("torque_circle_Nm")) / arkkio - 1.0) < 0.02);
-  CHECK(std::abs(mean(t.at("torque_virtual_work_Nm")) / arkkio - 1.0) < 0.02);
+  CHECK(std::abs(mean(t.at("torque_circle_N_m")) / arkkio - 1.0) < 0.02);
+  CHECK(std::abs(mean(t.at("torque_virtual_work_N_m")) / arkkio - 1.0) < 0.02);
   // A balanced winding under balanced currents links balanced fluxes: equal amplitudes, phases
   // 120° apart in the order of the currents (../shared/CHECKS.md §3; DESIGN.md §5 conventions).
   const auto a = fundamental(t.at("flux_linkage_A_Wb"));
@@ -120,10 +120,10 @@ TEST_CASE("cogging: the torque repeats every 360/LCM(Q, 2p) degrees and averages
   // With no current the co-energy returns to its value after a period, so the torque, its
   // derivative, averages to zero (energy conservation): a mean far below the swing.
   const auto t = read_columns(out / "torque.csv");
-  const double swing = s["torque"]["arkkio"]["peak_to_peak_Nm"].get<double>();
+  const double swing = s["torque"]["arkkio"]["peak_to_peak_N_m"].get<double>();
   CHECK(swing > 0.0);
-  CHECK(std::abs(mean(t.at("torque_arkkio_Nm"))) < 0.02 * swing);
-  CHECK(std::abs(mean(t.at("torque_virtual_work_Nm"))) < 0.02 * swing);
+  CHECK(std::abs(mean(t.at("torque_arkkio_N_m"))) < 0.02 * swing);
+  CHECK(std::abs(mean(t.at("torque_virtual_work_N_m"))) < 0.02 * swing);
   // The open-circuit back-EMF of a balanced winding is balanced too.
   const auto a = fundamental(t.at("emf_A_V")), b = fundamental(t.at("emf_B_V"));
   CHECK(std::abs(std::abs(b) / std::abs(a) - 1.0) < 0.01);

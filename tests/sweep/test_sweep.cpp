@@ -163,6 +163,16 @@ TEST_CASE("two shards collected equal one unsharded run") {
   CHECK(text_of(alone_dir / "sweep_summary.csv").find(",missing,") != std::string::npos);
 }
 
+TEST_CASE("ranking by a metric that no variant reports fails and says so") {
+  // The reference sweep is of phase-angle studies: their rotor does not turn, so no torque.
+  const fs::path out = fresh_folder("sweep_rank_torque");
+  const auto r = turnfield("collect " + reference_run().out.string() + " --out " + out.string() +
+                           " --rank-by torque_mean_N_m");
+  CHECK(r.status == 1);
+  CHECK(r.output.find("rank by torque_mean_N_m: none of the 5 variants that ran reports it") != std::string::npos);
+  CHECK_FALSE(fs::exists(out / "best_variant"));
+}
+
 TEST_CASE("every sweep file in cases/sweeps lists valid variants") {
   int n = 0;
   for (const auto& entry : fs::directory_iterator(fs::path(TF_SOURCE_DIR) / "cases" / "sweeps")) {
