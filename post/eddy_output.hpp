@@ -12,7 +12,7 @@
 #include "mesh/mesh.hpp"
 #include "mesh/winding.hpp"
 #include "post/eddy_quantities.hpp"
-#include "solver/eddy.hpp"
+#include "solver/time_harmonic.hpp"
 
 namespace tf::post {
 
@@ -34,7 +34,7 @@ struct EddyRecord {
   const mesh::Winding* winding = nullptr;
   const std::vector<SpeedResult>* rows = nullptr;
   std::vector<SkinDepth> skin;
-  solver::EddyStats stats;
+  solver::TimeHarmonicStats stats;
   std::vector<std::pair<std::string, double>> seconds;
   std::vector<std::string> files;
   /// How rotor motion entered the model.

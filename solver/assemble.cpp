@@ -1,32 +1,11 @@
 #include "solver/assemble.hpp"
 
 #include <cassert>
-#include <numbers>
 #include <string>
 
 #include "solver/errors.hpp"
 
 namespace tf::solver {
-namespace {
-
-double relative_permeability(const mesh::Region& r, const Materials& mat) {
-  switch (r.kind) {
-    case mesh::RegionKind::stator_iron: return mat.stator_iron_mu_r;
-    case mesh::RegionKind::rotor_iron: return mat.rotor_iron_mu_r;
-    case mesh::RegionKind::shaft: return mat.shaft_mu_r;
-    case mesh::RegionKind::rotor_sleeve: return mat.sleeve_mu_r;
-    case mesh::RegionKind::magnet: return mat.magnet_mu_rec;
-    default: return 1.0;
-  }
-}
-
-}  // namespace
-
-std::vector<double> region_reluctivity(const mesh::Mesh& m, const Materials& materials) {
-  std::vector<double> nu;
-  for (const auto& r : m.regions) nu.push_back(1.0 / (4e-7 * std::numbers::pi * relative_permeability(r, materials)));
-  return nu;
-}
 
 TriangleXY triangle_xy(const mesh::Mesh& m, int t) {
   TriangleXY xy;

@@ -11,7 +11,6 @@
 #include "mesh/mesh.hpp"
 #include "mesh/winding.hpp"
 #include "solver/dofs.hpp"
-#include "solver/materials.hpp"
 #include "solver/p1.hpp"
 
 namespace tf::solver {
@@ -32,9 +31,6 @@ inline Eigen::Vector3d element_values(const ElementDofs& e, const Eigen::VectorX
   for (int i = 0; i < 3; ++i) ae(i) = e.dofs(i) >= 0 ? e.signs(i) * x(e.dofs(i)) : 0.0;
   return ae;
 }
-
-/// Reluctivity nu = 1/(mu0 mu_r) [m/H] of each region, indexed like m.regions.
-std::vector<double> region_reluctivity(const mesh::Mesh& m, const Materials& materials);
 
 /// An element kernel of solver/p1.hpp: (vertices [m], coefficient) -> 3 by 3 element matrix.
 using ElementKernel = Eigen::Matrix3d (*)(const TriangleXY&, double);

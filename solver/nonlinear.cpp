@@ -34,6 +34,12 @@ Material material_of(const RegionLaw& law, double b_squared) {
 
 }  // namespace
 
+std::vector<RegionLaw> region_laws(const RegionCoefficients& c) {
+  std::vector<RegionLaw> laws;
+  for (std::size_t r = 0; r < c.nu.size(); ++r) laws.push_back({c.nu[r], c.curve[r] ? &*c.curve[r] : nullptr});
+  return laws;
+}
+
 NonlinearSolver::NonlinearSolver(const mesh::Mesh& m, const DofMap& d, std::vector<RegionLaw> laws,
                                  NewtonControls controls)
     : mesh_(m), laws_(std::move(laws)), controls_(controls) {
