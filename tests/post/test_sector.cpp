@@ -25,7 +25,8 @@ using namespace tf;
 
 namespace {
 
-/// The analytic arctan law of ../shared/CHECKS.md §5 (J_s = 2 T, mu_ri = 5000), sampled.
+/// The analytic arctan law B(H) = mu0 H + (2 J_s/pi) arctan(pi (mu_ri - 1) mu0 H / (2 J_s)) (J_s = 2 T,
+/// mu_ri = 5000), sampled.
 const solver::BhCurve& iron_curve() {
   static const solver::BhCurve curve = solver::sampled_arctan_law(2.0, 5000, 60, 1e6);
   return curve;
@@ -42,7 +43,7 @@ NonlinearField nonlinear_field(const mesh::Mesh& m, const mesh::Geometry& g, con
                                const std::vector<double>& currents, int shift) {
   const solver::Materials mat{};
   const solver::DofMap d = solver::number_dofs(m, shift);
-  const std::vector<double> nu = solver::region_reluctivity(m, mat);
+  const std::vector<double> nu = solver::region_coefficients(m, mat).nu;
   std::vector<solver::RegionLaw> laws;
   for (std::size_t r = 0; r < m.regions.size(); ++r) {
     const mesh::RegionKind k = m.regions[r].kind;
