@@ -26,7 +26,8 @@ namespace {
 using Clock = std::chrono::steady_clock;
 double since(Clock::time_point t) { return std::chrono::duration<double>(Clock::now() - t).count(); }
 
-// TEAM 30a torques [N m/m] at 0, 200, ..., 1200 rad/s (../shared/CHECKS.md §1).
+// TEAM 30a torques [N m/m] at 0, 200, ..., 1200 rad/s (K. R. Davey, "TEAM Problem 30a:
+// Induction Motor Analyses", International Compumag Society TEAM problem set).
 constexpr double kTorque[] = {3.825857, 6.505013, -3.89264, -5.75939, -3.59076, -2.70051, -2.24996};
 
 }  // namespace
@@ -41,10 +42,12 @@ int main(int argc, char** argv) {
     c.mesh.fineness = fineness;
     const auto start = Clock::now();
     const auto [m, w] = app::mesh_and_wind(c);
-    const solver::TimeHarmonicSystem s = solver::assemble_time_harmonic(m, w, solver::region_coefficients(m, c.materials));
+    const solver::TimeHarmonicSystem s =
+        solver::assemble_time_harmonic(m, w, solver::region_coefficients(m, c.materials));
     const auto currents = solver::supply_phasors(c.supply, c.winding.n_phases);
     std::vector<solver::TimeHarmonicProblem> problems;
-    for (double speed : c.study.rotor_speeds) problems.push_back({currents, 2 * std::numbers::pi * c.supply.frequency, speed});
+    const double omega = 2 * std::numbers::pi * c.supply.frequency;
+    for (double speed : c.study.rotor_speeds) problems.push_back({currents, omega, speed});
     solver::TimeHarmonicStats stats;
     const auto t_solve = Clock::now();
     const auto sol = solver::solve_time_harmonic(m, s, problems, stats);
