@@ -15,6 +15,7 @@
 #include "study/motion_plan.hpp"
 #include "study/mesh_plan.hpp"
 #include "solver/assemble.hpp"
+#include "solver/coefficients.hpp"
 #include "solver/dofs.hpp"
 #include "solver/motion.hpp"
 #include "solver/spd_solver.hpp"
@@ -37,7 +38,7 @@ int main(int argc, char** argv) {
   const study::MotionSchedule plan = study::plan_motion(c, m, w);
   {  // One linear system of this mesh: the size of its factor and the cost of one factorization.
     const solver::DofMap d = solver::number_dofs(m, 0);
-    const auto K = solver::assemble_stiffness(m, d, solver::region_reluctivity(m, c.materials));
+    const auto K = solver::assemble_stiffness(m, d, solver::region_coefficients(m, c.materials).nu);
     solver::SpdSolver s;
     auto t0 = Clock::now();
     s.analyse(K);

@@ -18,6 +18,7 @@
 #include "post/study.hpp"
 #include "post/tables.hpp"
 #include "solver/assemble.hpp"
+#include "solver/coefficients.hpp"
 #include "solver/dofs.hpp"
 #include "solver/phase_fields.hpp"
 #include "solver/spd_solver.hpp"
@@ -62,7 +63,7 @@ int main(int argc, char** argv) {
 
   // One more factorization of the same matrix, alone, as the yardstick.
   const solver::DofMap d = solver::number_dofs(m);
-  const auto K = solver::assemble_stiffness(m, d, solver::region_reluctivity(m, c.materials));
+  const auto K = solver::assemble_stiffness(m, d, solver::region_coefficients(m, c.materials).nu);
   solver::SpdSolver s;
   s.analyse(K);
   t = Clock::now();

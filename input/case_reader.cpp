@@ -178,7 +178,7 @@ StudyPlan read_study(const Fields& root, const solver::Supply& supply) {
   s.n_steps = f->integer_or("steps", s.n_steps, {.min = states ? 2 : 3, .max = 100000});
   // "No more than the steps" is a consistency check, so its message can name the steps.
   s.n_field_files = f->integer_or("field_files", std::min(36, s.n_steps), {.min = 0, .max = 100000});
-  // At least 720 points on the mid-gap circle, half a degree apart (../shared/DESIGN.md §3).
+  // At least 720 points on the mid-gap circle, half a degree apart (README.md, "Field-rotation metrics").
   s.n_gap_points = f->integer_or("gap_points", s.n_gap_points, {.min = 720, .max = 1000000});
   s.max_harmonic = f->integer_or("harmonics", s.max_harmonic, {.min = 1, .max = 500});
   return s;

@@ -2,7 +2,7 @@
 // Which sector of the machine can stand for the whole: the smallest number of slot pitches over
 // which the winding and the rotor repeat, with the same sign (periodic) or with every sign flipped
 // (anti-periodic). A magnetostatic field driven by such sources repeats the same way, so one sector
-// with matched cut nodes gives the whole machine's field (DESIGN.md §2).
+// with matched cut nodes gives the whole machine's field (DEVELOPERS.md, "Sector models").
 
 #include <optional>
 

@@ -12,7 +12,7 @@
 #include "mesh/mesh.hpp"
 #include "mesh/winding.hpp"
 #include "post/eddy_quantities.hpp"
-#include "solver/eddy.hpp"
+
 
 namespace tf::post {
 

@@ -75,8 +75,8 @@ struct SpeedResult {
 struct SpeedInputs {
   const mesh::Mesh* mesh;
   const mesh::Winding* winding;
-  std::vector<double> sigma;   ///< per region [S/m]
-  std::vector<bool> on_rotor;  ///< per region
+  std::vector<double> sigma;   ///< per region [S/m]: solver::RegionCoefficients::sigma (EddyModel::motion_term)
+  std::vector<bool> on_rotor;  ///< per region: solver::RegionCoefficients::moves_with_rotor
   std::vector<std::complex<double>> currents;  ///< per phase, peak phasors [A]
   double frequency;            ///< [Hz]
   double stack_length;         ///< [m]

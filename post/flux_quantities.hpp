@@ -15,7 +15,7 @@ struct DqPair {
 /// Amplitude-invariant Park transform generalised to m >= 2 phases (R. H. Park, "Two-reaction
 /// theory of synchronous machines", AIEE Trans. 48, 1929 (from memory), for three phases; the m-phase form is the
 /// same projection): with phase k's axis at k delta electrical (delta = solver::phase_shift(m):
-/// 360°/m for odd m, 180°/m for even m, so 90° for two-phase, DESIGN.md §5),
+/// 360°/m for odd m, 180°/m for even m, so 90° for two-phase; DEVELOPERS.md, "Conventions"),
 ///   d =  (2/m) sum_k x_k cos(theta_e - k delta),   q = -(2/m) sum_k x_k sin(theta_e - k delta).
 /// theta_e: electrical angle of the d axis [rad], counter-clockwise from phase A's axis. q leads d by
 /// 90° electrical: the set x_k = X cos(theta_e + gamma - k delta) (a vector gamma ahead of d) gives

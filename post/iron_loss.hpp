@@ -19,16 +19,9 @@
 #include <Eigen/Core>
 
 #include "mesh/mesh.hpp"
+#include "solver/materials.hpp"
 
 namespace tf::post {
-
-/// Loss coefficients of one steel; all zero (the default) means no iron loss in that region.
-struct SteinmetzCoefficients {
-  double k_h = 0.0;      ///< hysteresis [W/kg / (Hz T^alpha)]
-  double alpha = 2.0;    ///< Steinmetz exponent [-]
-  double k_e = 0.0;      ///< classical eddy current [W/kg / (Hz T)^2]
-  double density = 0.0;  ///< mass density [kg/m^3]
-};
 
 /// Flux density of each triangle at K equal time steps over one electrical period, t_k = k / (K f).
 struct FluxHistory {
@@ -47,12 +40,14 @@ struct IronLoss {
 /// Specific loss [W/kg] of one component sampled at K equal steps over one period of `frequency`:
 /// sum over harmonics n = 1 .. K/2 of k_h (n f) B_n^alpha + k_e (n f)^2 B_n^2, where B_n is the peak
 /// amplitude of harmonic n from the discrete Fourier transform (the mean, n = 0, loses nothing).
-double specific_loss(const SteinmetzCoefficients& c, const Eigen::VectorXd& samples, double frequency);
+/// k_h = c.hysteresis, alpha = c.exponent, k_e = c.eddy.
+double specific_loss(const solver::IronLossData& c, const Eigen::VectorXd& samples, double frequency);
 
-/// Loss of every triangle whose region has coefficients: density [W/m^3] = rho (p(B_x) + p(B_y)),
-/// and per region [W] = sum of density * area * stack_length.
-/// per_region: indexed like m.regions. stack_length [m] (1 for per-metre values [W/m]).
-IronLoss iron_loss(const mesh::Mesh& m, const FluxHistory& b, const std::vector<SteinmetzCoefficients>& per_region,
+/// Loss of every triangle whose region has coefficients (k_h or k_e and the density nonzero):
+/// density [W/m^3] = rho (p(B_x) + p(B_y)), and per region [W] = sum of density * area * stack_length.
+/// per_region: indexed like m.regions (solver::RegionCoefficients::iron_loss). stack_length [m]
+/// (1 for per-metre values [W/m]).
+IronLoss iron_loss(const mesh::Mesh& m, const FluxHistory& b, const std::vector<solver::IronLossData>& per_region,
                    double stack_length);
 
 }  // namespace tf::post

@@ -1,5 +1,5 @@
 #pragma once
-// Pole map of the stator field on the mid-gap circle (../shared/DESIGN.md §3): the north and
+// Pole map of the stator field on the mid-gap circle (README.md, "Field-rotation metrics"): the north and
 // south poles and where they lie. A stator north pole is where flux leaves the bore into the gap,
 // so B_r < 0 there (B_r > 0 points outwards, from rotor to stator).
 

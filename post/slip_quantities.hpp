@@ -30,8 +30,8 @@ RotatingComponents rotating_components(const std::vector<std::complex<double>>& 
 struct SlipInputs {
   const mesh::Mesh* mesh;
   const mesh::Winding* winding;
-  std::vector<double> sigma;   ///< per region [S/m], solver::slip_conductivity
-  std::vector<bool> on_rotor;  ///< per region, solver::slip_on_rotor
+  std::vector<double> sigma;   ///< per region [S/m]: RegionCoefficients::sigma of EddyModel::slip_frequency
+  std::vector<bool> on_rotor;  ///< per region: RegionCoefficients::moves_with_rotor
   double frequency;            ///< supply [Hz]
   double stack_length;         ///< [m]
 };

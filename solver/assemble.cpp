@@ -1,80 +1,63 @@
 #include "solver/assemble.hpp"
 
-#include <numbers>
+#include <cassert>
 #include <string>
 
 #include "solver/errors.hpp"
-#include "solver/p1.hpp"
 
 namespace tf::solver {
-namespace {
 
-constexpr double kMu0 = 4e-7 * std::numbers::pi;
-
-TriangleXY vertices(const mesh::Mesh& m, int t) {
+TriangleXY triangle_xy(const mesh::Mesh& m, int t) {
   TriangleXY xy;
   for (int i = 0; i < 3; ++i) xy.row(i) = m.nodes.row(m.triangles(t, i));
   return xy;
 }
 
-double relative_permeability(const mesh::Region& r, const Materials& mat) {
-  switch (r.kind) {
-    case mesh::RegionKind::stator_iron: return mat.stator_iron_mu_r;
-    case mesh::RegionKind::rotor_iron: return mat.rotor_iron_mu_r;
-    case mesh::RegionKind::shaft: return mat.shaft_mu_r;
-    case mesh::RegionKind::rotor_sleeve: return mat.sleeve_mu_r;
-    case mesh::RegionKind::magnet: return mat.magnet_mu_rec;
-    // Air and copper or aluminium: the permeability of free space.
-    case mesh::RegionKind::coil:
-    case mesh::RegionKind::slot_air:
-    case mesh::RegionKind::gap:
-    case mesh::RegionKind::bore_air:
-    case mesh::RegionKind::outer_air:
-    case mesh::RegionKind::rotor_air:
-    case mesh::RegionKind::rotor_bar: return 1.0;
+ElementDofs element_dofs(const mesh::Mesh& m, const DofMap& d, int t) {
+  ElementDofs e;
+  for (int i = 0; i < 3; ++i) {
+    const int node = m.triangles(t, i);
+    e.dofs(i) = d.dof_of_node[static_cast<std::size_t>(node)];
+    e.signs(i) = d.sign(node);
   }
-  return 1.0;
+  return e;
 }
 
-}  // namespace
-
-std::vector<double> region_reluctivity(const mesh::Mesh& m, const Materials& materials) {
-  std::vector<double> nu;
-  for (const auto& r : m.regions) nu.push_back(1.0 / (kMu0 * relative_permeability(r, materials)));
-  return nu;
-}
-
-Eigen::SparseMatrix<double> assemble_stiffness(const mesh::Mesh& m, const DofMap& d, const std::vector<double>& nu) {
+Eigen::SparseMatrix<double> assemble_matrix(const mesh::Mesh& m, const DofMap& d,
+                                            const std::vector<double>& coefficient, ElementKernel kernel) {
+  assert(coefficient.size() == m.regions.size());
   std::vector<Eigen::Triplet<double>> triplets;
   triplets.reserve(9 * static_cast<std::size_t>(m.n_triangles()));
   for (int t = 0; t < m.n_triangles(); ++t) {
-    const Eigen::Matrix3d k = p1_stiffness(vertices(m, t), nu[m.triangle_region(t)]);
+    const double c = coefficient[static_cast<std::size_t>(m.triangle_region(t))];
+    if (c == 0.0) continue;
+    const Eigen::Matrix3d k = kernel(triangle_xy(m, t), c);
+    const ElementDofs e = element_dofs(m, d, t);
     for (int i = 0; i < 3; ++i) {
-      const int di = d.dof_of_node[m.triangles(t, i)];
-      if (di < 0) continue;
-      const double si = d.sign(m.triangles(t, i));
-      for (int j = 0; j < 3; ++j) {
-        const int dj = d.dof_of_node[m.triangles(t, j)];
-        if (dj >= 0) triplets.emplace_back(di, dj, si * d.sign(m.triangles(t, j)) * k(i, j));
-      }
+      if (e.dofs(i) < 0) continue;
+      for (int j = 0; j < 3; ++j)
+        if (e.dofs(j) >= 0) triplets.emplace_back(e.dofs(i), e.dofs(j), e.signs(i) * e.signs(j) * k(i, j));
     }
   }
-  Eigen::SparseMatrix<double> K(d.n_dofs, d.n_dofs);
-  K.setFromTriplets(triplets.begin(), triplets.end());
-  return K;
+  Eigen::SparseMatrix<double> matrix(d.n_dofs, d.n_dofs);
+  matrix.setFromTriplets(triplets.begin(), triplets.end());
+  return matrix;
+}
+
+Eigen::SparseMatrix<double> assemble_stiffness(const mesh::Mesh& m, const DofMap& d, const std::vector<double>& nu) {
+  return assemble_matrix(m, d, nu, p1_stiffness);
 }
 
 Eigen::VectorXd region_current_load(const mesh::Mesh& m, const DofMap& d, const std::vector<double>& j) {
   Eigen::VectorXd f = Eigen::VectorXd::Zero(d.n_dofs);
   for (int t = 0; t < m.n_triangles(); ++t) {
-    const double jt = j[m.triangle_region(t)];
+    const double jt = j[static_cast<std::size_t>(m.triangle_region(t))];
     if (jt == 0.0) continue;
     // int_e J phi_i = J * area / 3 for each vertex of a first-order triangle.
     const double share = jt * mesh::triangle_area(m, t) / 3.0;
-    for (int i = 0; i < 3; ++i) {
-      const int di = d.dof_of_node[m.triangles(t, i)];
-      if (di >= 0) f(di) += d.sign(m.triangles(t, i)) * share;
-    }
+    const ElementDofs e = element_dofs(m, d, t);
+    for (int i = 0; i < 3; ++i)
+      if (e.dofs(i) >= 0) f(e.dofs(i)) += e.signs(i) * share;
   }
   return f;
 }

@@ -59,7 +59,7 @@ class BhCurve {
   std::vector<double> energy_at_point_;      ///< w(b_k)
 };
 
-/// The analytic law B(H) = mu0 H + (2 Js/pi) atan(pi (mu_ri - 1) mu0 H / (2 Js)) (../shared/CHECKS.md §5)
+/// The analytic law B(H) = mu0 H + (2 Js/pi) atan(pi (mu_ri - 1) mu0 H / (2 Js)) (docs/references.md §5)
 /// sampled into a table: (0, 0) and n_points - 1 values of H spaced evenly in log H from
 /// h_knee/100 to h_max, where h_knee = 2 Js/(pi (mu_ri - 1) mu0) is the H at which the arctan's
 /// argument is 1. Js [T], mu_ri > 1, h_max [A/m] > h_knee/100, n_points >= 3. Even spacing in

@@ -12,7 +12,7 @@
 #include <Eigen/UmfPackSupport>
 
 #include "solver/dofs.hpp"
-#include "solver/eddy.hpp"
+#include "solver/time_harmonic.hpp"
 #include "solver/errors.hpp"
 
 namespace tf::solver {
@@ -25,7 +25,7 @@ class ComplexSequence {
   explicit ComplexSequence(std::string what) : what_(std::move(what)) {}
 
   /// Solves system x = load (#dofs); the times of each part go into stats. Throws SolveError.
-  Eigen::VectorXcd solve(const Matrix& system, const Eigen::VectorXcd& load, EddyStats& stats) {
+  Eigen::VectorXcd solve(const Matrix& system, const Eigen::VectorXcd& load, TimeHarmonicStats& stats) {
     auto t = Clock::now();
     if (!analysed_) {
       lu_.analyzePattern(system);

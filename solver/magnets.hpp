@@ -39,7 +39,7 @@ MagnetLayout magnet_layout(const mesh::RotorGeometry& r);
 Eigen::Vector2d remanence(const MagnetLayout& layout, double b_r, int pole, const Eigen::Vector2d& centroid);
 
 /// Load vector, #dofs, of every magnet region (RegionKind::magnet) of m: remanence
-/// mat.magnet_remanence, reluctivity 1/(mu0 mat.magnet_mu_rec) (the value region_reluctivity gives
+/// mat.magnet_remanence, reluctivity 1/(mu0 mat.magnet_mu_rec) (the value region_coefficients gives
 /// the magnets, which the stiffness must use too). Entries of nodes without an unknown are dropped.
 Eigen::VectorXd magnet_load(const mesh::Mesh& m, const DofMap& d, const Materials& mat, const MagnetLayout& layout);
 

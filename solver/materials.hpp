@@ -1,6 +1,7 @@
 #pragma once
-// Linear materials of the cross-section. Coils and air have the permeability of free space and,
-// as source regions of given current, no eddy currents.
+// Materials of the cross-section, per kind of part, as a case gives them. Coils and air have the
+// permeability of free space and, as source regions of given current, no eddy currents.
+// solver::region_coefficients (solver/coefficients.hpp) turns them into per-region coefficients.
 
 #include <optional>
 #include <string>
@@ -16,8 +17,9 @@ struct BhTable {
   double stacking_factor = 1.0;
 };
 
-/// Iron-loss coefficients of a steel (a Steinmetz-type law, post/iron_loss.hpp); k_h = k_e = 0: no
-/// estimate.
+/// Iron-loss coefficients of a steel (a Steinmetz-type law, post/iron_loss.hpp), the one type for
+/// them: as read, per region in RegionCoefficients::iron_loss, and as post::iron_loss takes them.
+/// k_h = k_e = 0 (the default): no estimate.
 struct IronLossData {
   double hysteresis = 0.0;  ///< k_h [W/kg / (Hz T^exponent)]
   double exponent = 2.0;    ///< Steinmetz exponent [-]

@@ -7,7 +7,7 @@
 #include <sstream>
 
 #include "solver/assemble.hpp"
-#include "solver/bh_curve.hpp"
+#include "solver/coefficients.hpp"
 #include "solver/dofs.hpp"
 #include "solver/errors.hpp"
 #include "solver/magnets.hpp"
@@ -28,28 +28,6 @@ DofMap node_space(const mesh::Mesh& m) {
   return d;
 }
 
-/// Per region: a constant reluctivity, or the B-H curve of laminated iron.
-std::vector<RegionLaw> region_laws(const mesh::Mesh& m, const Materials& mat, const std::vector<BhCurve>& curves) {
-  const std::vector<double> nu = region_reluctivity(m, mat);
-  std::vector<RegionLaw> laws(m.regions.size());
-  for (std::size_t r = 0; r < laws.size(); ++r) {
-    laws[r].nu = nu[r];
-    const mesh::RegionKind k = m.regions[r].kind;
-    if (k == mesh::RegionKind::stator_iron && mat.stator_iron_bh) laws[r].curve = &curves[0];
-    if (k == mesh::RegionKind::rotor_iron && mat.rotor_iron_bh) laws[r].curve = &curves[1];
-  }
-  return laws;
-}
-
-std::vector<BhCurve> make_curves(const Materials& mat) {
-  const BhTable none{{0.0, 1.0, 2.0}, {0.0, 1.0, 2.0}, "", 1.0};  // placeholder, never referenced
-  const auto make = [&](const std::optional<BhTable>& t) {
-    const BhTable& u = t ? *t : none;
-    return BhCurve(u.h, u.b, u.stacking_factor);
-  };
-  return {make(mat.stator_iron_bh), make(mat.rotor_iron_bh)};
-}
-
 }  // namespace
 
 double sliding_pitch(const mesh::Mesh& m) {
@@ -65,9 +43,9 @@ struct MotionSolver::Impl {
        NewtonControls c)
       : m(mesh),
         w(winding),
-        curves(make_curves(mat)),
+        coefficients(region_coefficients(mesh, mat)),
         dofs(number_dofs(mesh, 0)),
-        solver(mesh, dofs, region_laws(mesh, mat, curves), c) {
+        solver(mesh, dofs, region_laws(coefficients), c) {
     const DofMap all = node_space(m);
     unit_loads = phase_loads(m, all, w);
     magnet_source = layout.n_poles > 0 ? magnet_load(m, all, mat, layout) : Eigen::VectorXd::Zero(m.n_nodes());
@@ -75,7 +53,7 @@ struct MotionSolver::Impl {
   }
   const mesh::Mesh& m;
   const mesh::Winding& w;
-  std::vector<BhCurve> curves;  ///< stator iron, rotor iron (referenced by the solver's laws)
+  RegionCoefficients coefficients;  ///< nu and B-H curves per region (referenced by the solver's laws)
   DofMap dofs;                  ///< numbering of the rotor position solved last
   NonlinearSolver solver;
   Eigen::MatrixXd unit_loads;    ///< #nodes by #phases

@@ -1,6 +1,6 @@
 #pragma once
 // Magnetostatic fields with the rotor turned: the rotor's mesh never moves; a turn by k pitches of
-// the sliding circle reconnects rotor-side node i to stator-side node i + k (../shared/DESIGN.md §2).
+// the sliding circle reconnects rotor-side node i to stator-side node i + k.
 // Every position has its own sparsity pattern but the same unknowns, so the fill-reducing ordering
 // of the first position serves them all; only the cheap symbolic step is redone per position.
 

@@ -6,6 +6,7 @@
 #include <cassert>
 #include <cmath>
 
+#include "solver/assemble.hpp"
 #include "solver/p1.hpp"
 
 namespace tf::solver {
@@ -14,8 +15,7 @@ struct NonlinearSolver::Element {
   Eigen::Matrix3d unit_stiffness;  ///< int grad(phi_i) . grad(phi_j) [1]
   double area = 0.0;               ///< [m^2]
   int region = 0;
-  Eigen::Vector3i dofs;            ///< -1 at fixed nodes
-  Eigen::Vector3d signs;           ///< A at vertex i = signs(i) * a(dofs(i)) (sector models: -1 across anti-periodic cuts)
+  ElementDofs unknowns;            ///< A at vertex i = signs(i) * a(dofs(i)); dofs -1 at fixed nodes
   std::array<int, 9> value_index;  ///< where K(i, j) sits in matrix_.valuePtr(); -1 if fixed
 };
 
@@ -34,6 +34,12 @@ Material material_of(const RegionLaw& law, double b_squared) {
 
 }  // namespace
 
+std::vector<RegionLaw> region_laws(const RegionCoefficients& c) {
+  std::vector<RegionLaw> laws;
+  for (std::size_t r = 0; r < c.nu.size(); ++r) laws.push_back({c.nu[r], c.curve[r] ? &*c.curve[r] : nullptr});
+  return laws;
+}
+
 NonlinearSolver::NonlinearSolver(const mesh::Mesh& m, const DofMap& d, std::vector<RegionLaw> laws,
                                  NewtonControls controls)
     : mesh_(m), laws_(std::move(laws)), controls_(controls) {
@@ -44,10 +50,8 @@ NonlinearSolver::NonlinearSolver(const mesh::Mesh& m, const DofMap& d, std::vect
   }
   elements_.resize(static_cast<std::size_t>(m.n_triangles()));
   for (int t = 0; t < m.n_triangles(); ++t) {
-    TriangleXY xy;
-    for (int i = 0; i < 3; ++i) xy.row(i) = m.nodes.row(m.triangles(t, i));
     Element& e = elements_[static_cast<std::size_t>(t)];
-    e.unit_stiffness = p1_stiffness(xy, 1.0);
+    e.unit_stiffness = p1_stiffness(triangle_xy(m, t), 1.0);
     e.area = mesh::triangle_area(m, t);
     e.region = m.triangle_region(t);
   }
@@ -63,13 +67,11 @@ void NonlinearSolver::set_dofs(const DofMap& d) {
   triplets.reserve(9 * elements_.size());
   for (int t = 0; t < mesh_.n_triangles(); ++t) {
     Element& e = elements_[static_cast<std::size_t>(t)];
-    for (int i = 0; i < 3; ++i) {
-      e.dofs(i) = d.dof_of_node[static_cast<std::size_t>(mesh_.triangles(t, i))];
-      e.signs(i) = d.sign(mesh_.triangles(t, i));
-    }
+    e.unknowns = element_dofs(mesh_, d, t);
+    const Eigen::Vector3i& dofs = e.unknowns.dofs;
     for (int i = 0; i < 3; ++i)
       for (int j = 0; j < 3; ++j)
-        if (e.dofs(i) >= 0 && e.dofs(j) >= 0) triplets.emplace_back(e.dofs(i), e.dofs(j), 1.0);
+        if (dofs(i) >= 0 && dofs(j) >= 0) triplets.emplace_back(dofs(i), dofs(j), 1.0);
   }
   const bool same_size = n_dofs_ == d.n_dofs && matrix_.rows() == d.n_dofs;
   n_dofs_ = d.n_dofs;
@@ -79,12 +81,13 @@ void NonlinearSolver::set_dofs(const DofMap& d) {
   for (Element& e : elements_)
     for (int i = 0; i < 3; ++i)
       for (int j = 0; j < 3; ++j) {
+        const Eigen::Vector3i& dofs = e.unknowns.dofs;
         int& index = e.value_index[static_cast<std::size_t>(3 * i + j)];
         index = -1;
-        if (e.dofs(i) < 0 || e.dofs(j) < 0) continue;
-        const int* begin = matrix_.innerIndexPtr() + matrix_.outerIndexPtr()[e.dofs(j)];
-        const int* end = matrix_.innerIndexPtr() + matrix_.outerIndexPtr()[e.dofs(j) + 1];
-        index = static_cast<int>(std::lower_bound(begin, end, e.dofs(i)) - matrix_.innerIndexPtr());
+        if (dofs(i) < 0 || dofs(j) < 0) continue;
+        const int* begin = matrix_.innerIndexPtr() + matrix_.outerIndexPtr()[dofs(j)];
+        const int* end = matrix_.innerIndexPtr() + matrix_.outerIndexPtr()[dofs(j) + 1];
+        index = static_cast<int>(std::lower_bound(begin, end, dofs(i)) - matrix_.innerIndexPtr());
       }
   // Same unknowns: try the ordering of the last full analysis (no ordering search). Measured on a
   // 100k-unknown polar mesh, a turned rotor can nearly double the fill of that ordering, which costs
@@ -102,23 +105,13 @@ void NonlinearSolver::set_dofs(const DofMap& d) {
   last_solution_.resize(0);
 }
 
-namespace {
-
-Eigen::Vector3d element_values(const Eigen::Vector3i& dofs, const Eigen::Vector3d& signs, const Eigen::VectorXd& a) {
-  Eigen::Vector3d ae;
-  for (int i = 0; i < 3; ++i) ae(i) = dofs(i) >= 0 ? signs(i) * a(dofs(i)) : 0.0;
-  return ae;
-}
-
-}  // namespace
-
 std::vector<double> NonlinearSolver::triangle_b_squared(const Eigen::VectorXd& a) const {
   assert(a.size() == n_dofs_);
   std::vector<double> b2;
   b2.reserve(elements_.size());
   // |B|^2 = |grad a|^2 = a_e^T S_e a_e / area on a first-order triangle.
   for (const Element& e : elements_) {
-    const Eigen::Vector3d ae = element_values(e.dofs, e.signs, a);
+    const Eigen::Vector3d ae = element_values(e.unknowns, a);
     b2.push_back(std::max(0.0, ae.dot(e.unit_stiffness * ae) / e.area));
   }
   return b2;
@@ -127,11 +120,11 @@ std::vector<double> NonlinearSolver::triangle_b_squared(const Eigen::VectorXd& a
 Eigen::VectorXd NonlinearSolver::residual(const Eigen::VectorXd& a, const Eigen::VectorXd& f) const {
   Eigen::VectorXd r = -f;
   for (const Element& e : elements_) {
-    const Eigen::Vector3d ae = element_values(e.dofs, e.signs, a);
+    const Eigen::Vector3d ae = element_values(e.unknowns, a);
     const Eigen::Vector3d sa = e.unit_stiffness * ae;
     const double nu = material_of(laws_[static_cast<std::size_t>(e.region)], std::max(0.0, ae.dot(sa) / e.area)).nu;
     for (int i = 0; i < 3; ++i)
-      if (e.dofs(i) >= 0) r(e.dofs(i)) += e.signs(i) * nu * sa(i);
+      if (e.unknowns.dofs(i) >= 0) r(e.unknowns.dofs(i)) += e.unknowns.signs(i) * nu * sa(i);
   }
   return r;
 }
@@ -140,7 +133,7 @@ void NonlinearSolver::assemble(const Eigen::VectorXd& a, Matrix kind) {
   double* values = matrix_.valuePtr();
   std::fill(values, values + matrix_.nonZeros(), 0.0);
   for (const Element& e : elements_) {
-    const Eigen::Vector3d ae = element_values(e.dofs, e.signs, a);
+    const Eigen::Vector3d ae = element_values(e.unknowns, a);
     const Eigen::Vector3d sa = e.unit_stiffness * ae;
     const Material mat = material_of(laws_[static_cast<std::size_t>(e.region)], std::max(0.0, ae.dot(sa) / e.area));
     Eigen::Matrix3d k = mat.nu * e.unit_stiffness;
@@ -149,7 +142,7 @@ void NonlinearSolver::assemble(const Eigen::VectorXd& a, Matrix kind) {
     if (kind == Matrix::jacobian) k += (2 * mat.dnu_db2 / e.area) * (sa * sa.transpose());
     for (int ij = 0; ij < 9; ++ij)
       if (e.value_index[static_cast<std::size_t>(ij)] >= 0)
-        values[e.value_index[static_cast<std::size_t>(ij)]] += e.signs(ij / 3) * e.signs(ij % 3) * k(ij / 3, ij % 3);
+        values[e.value_index[static_cast<std::size_t>(ij)]] += e.unknowns.signs(ij / 3) * e.unknowns.signs(ij % 3) * k(ij / 3, ij % 3);
   }
 }
 
@@ -240,7 +233,7 @@ Eigen::VectorXd NonlinearSolver::predict(const Eigen::VectorXd& f) {
     for (int ij = 0; ij < 9; ++ij)
       if (e.value_index[static_cast<std::size_t>(ij)] >= 0)
         values[e.value_index[static_cast<std::size_t>(ij)]] +=
-            e.signs(ij / 3) * e.signs(ij % 3) * nu * e.unit_stiffness(ij / 3, ij % 3);
+            e.unknowns.signs(ij / 3) * e.unknowns.signs(ij % 3) * nu * e.unit_stiffness(ij / 3, ij % 3);
   }
   cholesky_.factorize(matrix_);
   factorized_.reset();

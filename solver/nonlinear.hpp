@@ -16,6 +16,7 @@
 
 #include "mesh/mesh.hpp"
 #include "solver/bh_curve.hpp"
+#include "solver/coefficients.hpp"
 #include "solver/dofs.hpp"
 #include "solver/spd_solver.hpp"
 
@@ -27,6 +28,10 @@ struct RegionLaw {
   double nu = 0.0;
   const BhCurve* curve = nullptr;
 };
+
+/// The law of each region (indexed like m.regions): c.nu, and c.curve where one is set. The laws
+/// point into c, which must outlive them.
+std::vector<RegionLaw> region_laws(const RegionCoefficients& c);
 
 struct NewtonControls {
   double tolerance = 1e-6;  ///< relative, on both the residual (to ||f||) and the update (to ||a||)

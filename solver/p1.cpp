@@ -19,6 +19,29 @@ Eigen::Matrix3d p1_stiffness(const TriangleXY& xy, double nu) {
   return (0.5 * twice_area * nu) * (g * g.transpose());
 }
 
+Eigen::Matrix3d p1_mass(const TriangleXY& xy, double sigma) {
+  double twice_area = 0.0;
+  p1_gradients(xy, twice_area);
+  const double area = 0.5 * twice_area;
+  Eigen::Matrix3d mass;
+  for (int i = 0; i < 3; ++i)
+    for (int j = 0; j < 3; ++j) mass(i, j) = sigma * (area / 12 * (i == j ? 2.0 : 1.0));
+  return mass;
+}
+
+Eigen::Matrix3d p1_motion(const TriangleXY& xy, double sigma) {
+  double twice_area = 0.0;
+  const auto g = p1_gradients(xy, twice_area);
+  const double area = 0.5 * twice_area;
+  const Eigen::Vector2d sum = xy.colwise().sum().transpose();
+  Eigen::Matrix3d motion;
+  for (int i = 0; i < 3; ++i) {
+    const double x_int = area / 12 * (sum(0) + xy(i, 0)), y_int = area / 12 * (sum(1) + xy(i, 1));
+    for (int j = 0; j < 3; ++j) motion(i, j) = sigma * (x_int * g(j, 1) - y_int * g(j, 0));
+  }
+  return motion;
+}
+
 Eigen::Vector2d p1_flux_density(const TriangleXY& xy, const Eigen::Vector3d& a) {
   double twice_area = 0.0;
   const Eigen::Vector2d grad = p1_gradients(xy, twice_area).transpose() * a;

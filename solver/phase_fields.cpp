@@ -3,6 +3,7 @@
 #include <chrono>
 
 #include "solver/assemble.hpp"
+#include "solver/coefficients.hpp"
 #include "solver/dofs.hpp"
 #include "solver/spd_solver.hpp"
 
@@ -19,7 +20,7 @@ PhaseFields solve_phase_fields(const mesh::Mesh& m, const mesh::Winding& w, cons
   PhaseFields out;
   auto t0 = std::chrono::steady_clock::now();
   const DofMap dofs = number_dofs(m);
-  const Eigen::SparseMatrix<double> K = assemble_stiffness(m, dofs, region_reluctivity(m, materials));
+  const Eigen::SparseMatrix<double> K = assemble_stiffness(m, dofs, region_coefficients(m, materials).nu);
   const Eigen::MatrixXd f = phase_loads(m, dofs, w);
   out.stats.assemble_seconds = seconds_since(t0);
   out.stats.n_dofs = dofs.n_dofs;

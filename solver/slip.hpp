@@ -9,6 +9,9 @@
 // Design of Rotating Electrical Machines, Wiley 2008, ch. 7, from memory). Stator conductors are
 // not in this model: laminated iron and stranded coils carry no eddy currents. Exact for the
 // fundamental wave: the stator's space harmonics are solved at the fundamental's slip too.
+// The system is solver/time_harmonic.hpp's with the coefficients of EddyModel::slip_frequency,
+// one TimeHarmonicProblem per wave with omega = s omega_supply (or (2 - s) omega_supply, signed)
+// and rotor_speed = 0.
 //
 // Cage end rings. In 2D every bar runs the whole stack and is joined at both ends; with ideal
 // (zero-resistance) rings all bars are connected in parallel at each end, so each bar's net
@@ -19,18 +22,6 @@
 //   sigma_bar' = k sigma_bar, k = R_bar / (R_bar + R_ring / (2 sin^2(pi p / N))),
 //   R_bar = L / (sigma_bar A_bar), R_ring = pi D / (N sigma_ring A_ring) (one ring segment)
 // (Pyrhönen, Jokinen, Hrabovcová 2008, ch. 7, from memory).
-
-#include <complex>
-#include <vector>
-
-#include <Eigen/Core>
-#include <Eigen/SparseCore>
-
-#include "mesh/mesh.hpp"
-#include "mesh/winding.hpp"
-#include "solver/dofs.hpp"
-#include "solver/eddy.hpp"
-#include "solver/materials.hpp"
 
 namespace tf::solver {
 
@@ -52,32 +43,5 @@ struct Cage {
 
 /// The factor k (0 < k <= 1) on the bar conductivity for rings of finite resistance (see above).
 double end_ring_factor(const Cage& cage, const EndRings& rings);
-
-/// Conductivity [S/m] per region in the slip-frequency model: rotor conductors (iron, shaft,
-/// sleeve, bars at materials.bar_sigma); 0 in the stator, air, coils and magnets.
-std::vector<double> slip_conductivity(const mesh::Mesh& m, const Materials& materials);
-
-/// Whether each region is on the rotor, bars included.
-std::vector<bool> slip_on_rotor(const mesh::Mesh& m);
-
-struct SlipSystem {
-  DofMap dofs;
-  Eigen::SparseMatrix<double> stiffness;   ///< K [#dofs by #dofs]
-  Eigen::SparseMatrix<double> rotor_mass;  ///< M_rotor: int sigma phi_i phi_j over rotor conductors
-  Eigen::MatrixXd unit_loads;              ///< #dofs by #phases, for 1 A in each phase
-};
-
-SlipSystem assemble_slip(const mesh::Mesh& m, const mesh::Winding& w, const Materials& materials);
-
-/// One time-harmonic problem in the rotor's frame.
-struct SlipProblem {
-  std::vector<std::complex<double>> currents;  ///< per phase, peak phasors [A]
-  double rotor_omega = 0.0;  ///< angular frequency the rotor sees [rad/s], signed: s omega or (2 - s) omega
-};
-
-/// A (#nodes, peak phasors [Wb/m]) of K + j rotor_omega M_rotor for each problem; one symbolic
-/// analysis for all. Throws SolveError.
-std::vector<Eigen::VectorXcd> solve_slip(const mesh::Mesh& m, const SlipSystem& s,
-                                         const std::vector<SlipProblem>& problems, EddyStats& stats);
 
 }  // namespace tf::solver

@@ -1,6 +1,6 @@
 #pragma once
 // Phase currents. Sinusoidal supplies are sets of phasors: i_k(t) = Re(I_k e^{j omega t}) with
-// peak-valued I_k. A balanced set (../shared/DESIGN.md §5) is I_k = I e^{-j k shift}, shift =
+// peak-valued I_k. A balanced set (DEVELOPERS.md, "Conventions") is I_k = I e^{-j k shift}, shift =
 // 360°/m for odd m and 180°/m for even m, so phase k lags phase 0 by k * shift in time while its
 // axis leads by k * shift in space, and the field turns counter-clockwise.
 

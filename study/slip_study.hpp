@@ -13,8 +13,8 @@
 #include "mesh/winding.hpp"
 #include "post/eddy_quantities.hpp"
 #include "post/slip_quantities.hpp"
-#include "solver/eddy.hpp"
 #include "solver/slip.hpp"
+#include "solver/time_harmonic.hpp"
 
 namespace tf::study {
 
@@ -33,6 +33,6 @@ solver::Cage cage_of(const input::Case& c);
 
 /// Solves every rotor speed of c.study by the slip-frequency method on the mesh and winding of c.
 /// Applies c.end_rings (slotted rotors) to the bar conductivity. Precondition: >= 2 phases.
-SlipStudy solve_slip_study(const input::Case& c, const mesh::Mesh& m, const mesh::Winding& w, solver::EddyStats& stats);
+SlipStudy solve_slip_study(const input::Case& c, const mesh::Mesh& m, const mesh::Winding& w, solver::TimeHarmonicStats& stats);
 
 }  // namespace tf::study

@@ -15,6 +15,7 @@
 #include "post/iron_loss.hpp"
 #include "post/study.hpp"
 #include "post/torque.hpp"
+#include "solver/coefficients.hpp"
 #include "solver/errors.hpp"
 #include "solver/flux_linkage.hpp"
 #include "solver/motion.hpp"
@@ -104,20 +105,6 @@ std::optional<post::FluxHistory> flux_history(const input::Case& c, const mesh::
   return h;
 }
 
-/// Steinmetz coefficients per region: the stator's in stator iron, the rotor's in rotor iron.
-std::vector<post::SteinmetzCoefficients> loss_coefficients(const input::Case& c, const mesh::Mesh& m) {
-  const auto convert = [](const std::optional<solver::IronLossData>& d) {
-    return d ? post::SteinmetzCoefficients{d->hysteresis, d->exponent, d->eddy, d->density}
-             : post::SteinmetzCoefficients{};
-  };
-  std::vector<post::SteinmetzCoefficients> out;
-  for (const auto& region : m.regions)
-    out.push_back(region.kind == mesh::RegionKind::stator_iron ? convert(c.materials.stator_iron_loss)
-                  : region.kind == mesh::RegionKind::rotor_iron ? convert(c.materials.rotor_iron_loss)
-                                                                : post::SteinmetzCoefficients{});
-  return out;
-}
-
 /// Every step solved in order; the nodal fields of the steps in `kept` are returned in `kept_fields`
 /// and, with a history, every triangle's B at every step.
 post::MotionResult solve_steps(const Context& x, solver::MotionSolver& s, const std::vector<int>& kept,
@@ -194,7 +181,7 @@ Solved solve_step_by_step(const StudyInput& in) {
 
   std::optional<post::IronLoss> loss;
   if (history) {
-    loss = post::iron_loss(in.m, *history, loss_coefficients(c, in.m), c.stack_length);
+    loss = post::iron_loss(in.m, *history, solver::region_coefficients(in.m, c.materials).iron_loss, c.stack_length);
     for (std::size_t i = 0; i < in.m.regions.size(); ++i)
       if (loss->region_loss[i] > 0.0) r.iron_loss.push_back({in.m.regions[i].name, loss->region_loss[i]});
     out.write_extra = [&m = in.m, loss = *loss](const std::filesystem::path& dir) {

@@ -8,8 +8,8 @@
 #include <fmt/format.h>
 
 #include "post/eddy_output.hpp"
-#include "solver/assemble.hpp"
-#include "solver/eddy.hpp"
+#include "solver/coefficients.hpp"
+#include "solver/time_harmonic.hpp"
 #include "solver/stopwatch.hpp"
 #include "study/slip_study.hpp"
 #include "study/solved.hpp"
@@ -30,11 +30,11 @@ void add_fields(const StudyInput& in, Solved& out, const std::vector<double>& sp
                  fmt::format("speed {} ({:.4g} rad/s), peak over a period{}", shown, speeds[shown], what)};
 }
 
-/// Skin depths per conducting region, with the permeability each region was solved with.
-std::vector<post::SkinDepth> skin(const StudyInput& in, const std::vector<double>& sigma, const std::vector<bool>& on) {
+/// Skin depths per conducting region, with the permeability and conductivity each region was solved with.
+std::vector<post::SkinDepth> skin(const StudyInput& in, const solver::RegionCoefficients& k) {
   std::vector<double> mu_r;
-  for (double nu : solver::region_reluctivity(in.m, in.c.materials)) mu_r.push_back(1.0 / (kMu0 * nu));
-  return post::skin_depths(in.m, sigma, mu_r, on, in.c.supply.frequency, in.c.study.rotor_speeds,
+  for (double nu : k.nu) mu_r.push_back(1.0 / (kMu0 * nu));
+  return post::skin_depths(in.m, k.sigma, mu_r, k.moves_with_rotor, in.c.supply.frequency, in.c.study.rotor_speeds,
                            in.w.spec.pole_pairs());
 }
 
@@ -47,7 +47,7 @@ void warn_coarse_skins(const std::vector<post::SkinDepth>& skin, std::vector<std
                                      d.region, 1e3 * d.depth, d.frequency, 1e3 * d.element_size));
 }
 
-post::SolverSummary umfpack_summary(const solver::EddyStats& stats) {
+post::SolverSummary umfpack_summary(const solver::TimeHarmonicStats& stats) {
   return {"UMFPACK complex LU; one symbolic analysis, one factorization per speed", stats.n_dofs, -1, -1, -1,
           std::numeric_limits<double>::quiet_NaN(),
           {{"analyse", stats.analyse_seconds}, {"factorize", stats.factorize_seconds}, {"solve", stats.solve_seconds}}};
@@ -59,24 +59,29 @@ Solved solve_by_motion_term(const StudyInput& in) {
   const input::Case& c = in.c;
   Solved out;
   in.progress.stage(fmt::format("solving {} rotor speeds", c.study.rotor_speeds.size()));
-  solver::EddyStats stats;
-  const solver::EddySystem system =
-      solver::timed(out.seconds, "assemble", [&] { return solver::assemble_eddy(in.m, in.w, c.materials); });
+  solver::TimeHarmonicStats stats;
+  const solver::RegionCoefficients k = solver::region_coefficients(in.m, c.materials, solver::EddyModel::motion_term);
+  const solver::TimeHarmonicSystem system =
+      solver::timed(out.seconds, "assemble", [&] { return solver::assemble_time_harmonic(in.m, in.w, k); });
   const auto currents = solver::supply_phasors(c.supply, c.winding.n_phases);
-  const auto solutions = std::make_shared<const std::vector<solver::EddySolution>>(
-      solver::solve_eddy(in.m, system, currents, c.supply.frequency, c.study.rotor_speeds, stats));
-  const post::SpeedInputs speed_in{&in.m, &in.w, solver::region_conductivity(in.m, c.materials),
-                                   solver::region_on_rotor(in.m), currents, c.supply.frequency, c.stack_length};
+  const std::vector<double>& speeds = c.study.rotor_speeds;
+  std::vector<solver::TimeHarmonicProblem> problems;
+  for (double speed : speeds) problems.push_back({currents, 2 * std::numbers::pi * c.supply.frequency, speed});
+  const auto solutions = std::make_shared<const std::vector<Eigen::VectorXcd>>(
+      solver::solve_time_harmonic(in.m, system, problems, stats));
+  const post::SpeedInputs speed_in{&in.m, &in.w, k.sigma, k.moves_with_rotor, currents, c.supply.frequency,
+                                   c.stack_length};
   solver::Stopwatch clock;
   post::EddyResult e;
-  for (const auto& x : *solutions) e.rows.push_back(post::evaluate_speed(speed_in, x.rotor_speed, x.potential));
+  for (std::size_t i = 0; i < speeds.size(); ++i)
+    e.rows.push_back(post::evaluate_speed(speed_in, speeds[i], (*solutions)[i]));
   e.method = "motion term sigma omega_r dA/dtheta (exact for rotationally invariant rotors)";
-  e.skin = skin(in, speed_in.sigma, speed_in.on_rotor);
+  e.skin = skin(in, k);
   warn_coarse_skins(e.skin, out.warnings);
   out.seconds.emplace_back("post", clock.lap());
-  add_fields(in, out, c.study.rotor_speeds, [solutions](int k) { return (*solutions)[k].potential; },
-             [&m = in.m, speed_in, solutions](int k, const std::filesystem::path& path) {
-               post::write_eddy_vtu(path, m, (*solutions)[k].potential, speed_in, (*solutions)[k].rotor_speed);
+  add_fields(in, out, speeds, [solutions](int i) { return (*solutions)[i]; },
+             [&m = in.m, speed_in, solutions, speeds](int i, const std::filesystem::path& path) {
+               post::write_eddy_vtu(path, m, (*solutions)[i], speed_in, speeds[i]);
              },
              "");
   out.solver = umfpack_summary(stats);
@@ -88,7 +93,7 @@ Solved solve_by_slip_method(const StudyInput& in) {
   const input::Case& c = in.c;
   Solved out;
   in.progress.stage(fmt::format("solving {} rotor speeds", c.study.rotor_speeds.size()));
-  solver::EddyStats stats;
+  solver::TimeHarmonicStats stats;
   auto study = std::make_shared<SlipStudy>(
       solver::timed(out.seconds, "solve", [&] { return solve_slip_study(c, in.m, in.w, stats); }));
   post::EddyResult e;
@@ -97,9 +102,11 @@ Solved solve_by_slip_method(const StudyInput& in) {
   e.method = "slip-frequency method, forward and backward components superposed";
   if (c.end_rings) e.end_ring_factor = study->end_ring_factor;
   for (const auto& i : study->components.rest) e.unmodelled_current = std::max(e.unmodelled_current, std::abs(i));
-  const std::vector<double> sigma = solver::slip_conductivity(in.m, study->materials);
-  const std::vector<bool> on = solver::slip_on_rotor(in.m);
-  e.skin = skin(in, sigma, on);
+  const solver::RegionCoefficients k =
+      solver::region_coefficients(in.m, study->materials, solver::EddyModel::slip_frequency);
+  const std::vector<double>& sigma = k.sigma;
+  const std::vector<bool>& on = k.moves_with_rotor;
+  e.skin = skin(in, k);
   warn_coarse_skins(e.skin, out.warnings);
   // The field files show the forward component in the rotor frame (J = -j s omega sigma A).
   add_fields(in, out, c.study.rotor_speeds, [study](int k) { return study->forward[k]; },

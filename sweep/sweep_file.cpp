@@ -1,5 +1,6 @@
 #include "sweep/sweep_file.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <filesystem>
 

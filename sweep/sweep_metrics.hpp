@@ -8,7 +8,7 @@
 
 namespace tf::sweep {
 
-/// The columns, in the order of sweep_summary.csv: field metrics (../shared/DESIGN.md §3), the
+/// The columns, in the order of sweep_summary.csv: field metrics (README.md, "Field-rotation metrics"), the
 /// winding factor, and Arkkio's torque where the study computes torque.
 std::vector<post::MetricColumn> sweep_metric_columns();
 

@@ -86,7 +86,7 @@ TEST_CASE("winding prints the slot table and factors, as text and as JSON") {
   const auto j = nlohmann::json::parse(json.output);
   CHECK(j["coil_sides"].size() == 48);
   CHECK(j["winding_factors"].size() == 13);
-  // 24 slots, 4 poles, pitch 5/6: k_w1 = 0.9330 (../shared/CHECKS.md §2).
+  // 24 slots, 4 poles, pitch 5/6: k_w1 = 0.9330 (docs/references.md §2).
   CHECK(j["winding_factors"][0]["total"].get<double>() == doctest::Approx(0.9330).epsilon(1e-4).scale(0));
 }
 

@@ -324,7 +324,7 @@ TEST_CASE("the salient-pole case reads its poles in SI units, the pole count sta
 }
 
 TEST_CASE("the TEAM 30a case reads its slotless stator, boundary, sleeve and conductivities in SI units") {
-  // Data: K. R. Davey, TEAM Problem 30a (../shared/CHECKS.md §1).
+  // Data: K. R. Davey, TEAM Problem 30a (docs/references.md §1).
   const auto c = read_case(source_dir + "/cases/team30a_three_phase.toml");
   const auto& s = c.geometry.stator;
   CHECK(s.kind == tf::mesh::StatorKind::slotless);

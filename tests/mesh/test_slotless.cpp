@@ -23,7 +23,7 @@ namespace {
 constexpr double kPi = std::numbers::pi;
 
 /// TEAM Workshop Problem 30a (K. R. Davey, "TEAM Problem 30a: Induction Motor Analyses", TEAM problem
-/// set; ../shared/CHECKS.md §1): rotor steel 0-20 mm in an aluminium sleeve 20-30 mm, gap 30-32 mm,
+/// set; docs/references.md §1): rotor steel 0-20 mm in an aluminium sleeve 20-30 mm, gap 30-32 mm,
 /// six 45° conductor sectors 32-52 mm, stator steel 52-57 mm; A = 0 at `boundary` (0: on the
 /// stator's outer surface).
 mesh::Geometry team30a(double boundary) {
@@ -231,7 +231,7 @@ TEST_CASE("far from the gap, elements resolve a slotless stator's iron ring, but
 }
 
 TEST_CASE("phase belts on six conductor sectors: +A, -C, +B, -A, +C, -B, TEAM 30a's arrangement") {
-  // K. R. Davey, TEAM Problem 30a (../shared/CHECKS.md §1): counter-clockwise from 0° in 60° steps,
+  // K. R. Davey, TEAM Problem 30a (docs/references.md §1): counter-clockwise from 0° in 60° steps,
   // A+, C-, B+, A-, C+, B-. An integral-slot single layer, q = 6/(2·3) = 1, full pitch.
   const mesh::Winding w = mesh::lay_out(testing::winding_spec(3, 2, 1, 3, 1), team30a(1.0).stator);
   CHECK(w.rule == mesh::LayoutRule::phase_belts);

@@ -33,7 +33,7 @@ double kw(const mesh::Winding& w, int electrical_order) {
 }  // namespace
 
 TEST_CASE("worked winding factors, 36 slots 4 poles three-phase") {
-  // ../shared/CHECKS.md §2 (Pyrhönen, Jokinen, Hrabovcová, Design of Rotating Electrical Machines, 2008, ch. 2).
+  // docs/references.md §2 (Pyrhönen, Jokinen, Hrabovcová, Design of Rotating Electrical Machines, 2008, ch. 2).
   const auto full = wind(36, 4, 3, 2, 9);
   CHECK(kw(full, 1) == doctest::Approx(0.9598).epsilon(1e-4).scale(0));
   CHECK(kw(full, 5) == doctest::Approx(0.2176).epsilon(1e-3).scale(0));
@@ -48,7 +48,7 @@ TEST_CASE("worked winding factors, 36 slots 4 poles three-phase") {
 }
 
 TEST_CASE("worked winding factors, 24 slots 4 poles three-phase") {
-  // ../shared/CHECKS.md §2: full pitch 0.9659, 5/6 pitch 0.9330 with k_w5 = k_w7 = 0.0670.
+  // docs/references.md §2: full pitch 0.9659, 5/6 pitch 0.9330 with k_w5 = k_w7 = 0.0670.
   CHECK(kw(wind(24, 4, 3, 2, 6), 1) == doctest::Approx(0.9659).epsilon(1e-4).scale(0));
   CHECK(kw(wind(24, 4, 3, 1, 6), 1) == doctest::Approx(0.9659).epsilon(1e-4).scale(0));
   const auto short56 = wind(24, 4, 3, 2, 5);
@@ -90,7 +90,7 @@ TEST_CASE("every slot-layer is used once and the phases are balanced, with axes 
       CHECK(sides[k] == sides[0]);
       CHECK(net[k] == 0);  // as many go as return sides
     }
-    // Phase k's fundamental axis leads phase A's by k * shift electrical (../shared/DESIGN.md §5).
+    // Phase k's fundamental axis leads phase A's by k * shift electrical (DEVELOPERS.md, "Conventions").
     const double shift = phases % 2 ? 2 * std::numbers::pi / phases : std::numbers::pi / phases;
     const int p = w.spec.pole_pairs();
     auto axis = [&](int phase) {
@@ -115,7 +115,7 @@ TEST_CASE("series turns count the conductors of one phase over two and the paral
 
 TEST_CASE("tooth-coil windings laid out by the star of slots have the published winding factors") {
   // A. M. El-Refaie, "Fractional-slot concentrated-windings synchronous permanent magnet machines",
-  // IEEE Trans. Ind. Electron. 57(1), 2010, Table I (from memory; ../shared/CHECKS.md §2):
+  // IEEE Trans. Ind. Electron. 57(1), 2010, Table I (from memory; docs/references.md §2):
   // 12 slots / 10 poles 0.9330 (double layer) and 0.9659 (single layer); 9 slots / 8 poles 0.9452.
   const auto w12 = wind(12, 10, 3, 2, 1);
   CHECK(w12.rule == mesh::LayoutRule::star_of_slots);
@@ -150,7 +150,7 @@ std::pair<double, double> resultant_waves(const mesh::Winding& w, int n) {
 }
 
 TEST_CASE("resultant space orders: 6k -+ 1 for three-phase, all odd orders for two-phase, each turning its way") {
-  // Standard theory (../shared/CHECKS.md §3; Fitzgerald, Kingsley, Umans, Electric Machinery, ch. 4;
+  // Standard theory (docs/references.md §3; Fitzgerald, Kingsley, Umans, Electric Machinery, ch. 4;
   // from memory): balanced three-phase windings carry 6k - 1 backward and 6k + 1 forward; two-phase
   // windings 4k - 1 backward and 4k + 1 forward, the 3rd not cancelled. A single phase still carries
   // the triplens; the balanced currents cancel them.

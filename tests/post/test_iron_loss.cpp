@@ -10,6 +10,7 @@
 #include <numbers>
 
 #include "post/iron_loss.hpp"
+#include "solver/coefficients.hpp"
 #include "support/polar_mesh.hpp"
 
 using namespace tf;
@@ -17,11 +18,11 @@ using namespace tf;
 namespace {
 
 constexpr double kPi = std::numbers::pi;
-const post::SteinmetzCoefficients kSteel{0.02, 1.9, 6e-5, 7650.0};  // invented
+const solver::IronLossData kSteel{0.02, 1.9, 6e-5, 7650.0, "invented"};
 
 /// The formula for one sinusoid of amplitude b [T] at frequency f [Hz], in W/kg.
-double steinmetz(const post::SteinmetzCoefficients& c, double b, double f) {
-  return c.k_h * f * std::pow(b, c.alpha) + c.k_e * f * f * b * b;
+double steinmetz(const solver::IronLossData& c, double b, double f) {
+  return c.hysteresis * f * std::pow(b, c.exponent) + c.eddy * f * f * b * b;
 }
 
 Eigen::VectorXd samples(int k_steps, const std::function<double(double)>& of_phase) {
@@ -74,9 +75,13 @@ TEST_CASE("iron loss: a rotating field loses twice one alternating component; to
       alternating.by(t, k) = 0.0;
     }
   }
-  std::vector<post::SteinmetzCoefficients> per_region(m.regions.size());
-  per_region[0] = kSteel;                                               // rotor
-  per_region[2] = {0.03, 1.8, 5e-5, 7600.0};                            // stator, another steel
+  // The rotor's steel in rotor iron, another steel in the stator's, none in the gap.
+  solver::Materials mat;
+  mat.rotor_iron_loss = kSteel;
+  mat.stator_iron_loss = solver::IronLossData{0.03, 1.8, 5e-5, 7600.0, "invented"};
+  const std::vector<solver::IronLossData> per_region = solver::region_coefficients(m, mat).iron_loss;
+  REQUIRE(per_region[0].hysteresis == kSteel.hysteresis);
+  REQUIRE(per_region[2].hysteresis == 0.03);
   const post::IronLoss rotating = post::iron_loss(m, b, per_region, stack);
   const post::IronLoss single = post::iron_loss(m, alternating, per_region, stack);
 

@@ -70,7 +70,7 @@ TEST_CASE("balanced three-phase distributed winding: a field of constant amplitu
 }
 
 TEST_CASE("balanced two-phase winding: constant amplitude, and the third space harmonic is not cancelled") {
-  // Standard theory (../shared/CHECKS.md §3): two-phase windings carry all odd orders.
+  // Standard theory (docs/references.md §3): two-phase windings carry all odd orders.
   const auto s = run(testing::semi_closed_stator(), 2, 2, 6, 1000.0);
   const auto& r = s.result;
   CHECK(r.metrics.amplitude_ripple < 0.01);

@@ -1,4 +1,4 @@
-// The field-rotation metrics on waves whose answers are known by construction (../shared/DESIGN.md §3).
+// The field-rotation metrics on waves whose answers are known by construction (README.md, "Field-rotation metrics").
 
 #include <doctest/doctest.h>
 

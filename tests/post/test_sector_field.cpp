@@ -11,6 +11,7 @@
 #include "mesh/build.hpp"
 #include "mesh/symmetry.hpp"
 #include "solver/assemble.hpp"
+#include "solver/coefficients.hpp"
 #include "solver/dofs.hpp"
 #include "solver/magnets.hpp"
 #include "solver/spd_solver.hpp"
@@ -26,7 +27,7 @@ Eigen::VectorXd linear_field(const mesh::Mesh& m, const mesh::Geometry& g, const
                              const std::vector<double>& currents, int shift) {
   const solver::Materials mat{.stator_iron_mu_r = 2000, .rotor_iron_mu_r = 2000};
   const solver::DofMap d = solver::number_dofs(m, shift);
-  const auto K = solver::assemble_stiffness(m, d, solver::region_reluctivity(m, mat));
+  const auto K = solver::assemble_stiffness(m, d, solver::region_coefficients(m, mat).nu);
   const Eigen::Map<const Eigen::VectorXd> i(currents.data(), 3);
   const Eigen::VectorXd f =
       solver::phase_loads(m, d, w) * i + solver::magnet_load(m, d, mat, solver::magnet_layout(g.rotor));

@@ -1,4 +1,4 @@
-// Inductance of a slotless sinusoidal winding against its closed form, ../shared/CHECKS.md §4
+// Inductance of a slotless sinusoidal winding against its closed form, docs/references.md §4
 // (derived from the classical slotless-gap solution in K. J. Binns, P. J. Lawrenson,
 // C. W. Trowbridge, The Analytical and Numerical Solution of Electric and Magnetic Fields, Wiley
 // 1992 — from memory): N_s series turns distributed as n(theta) = (N_s/2) sin(p theta) turns per
@@ -51,7 +51,7 @@ double flux_linkage(const testing::TwoSheetMachine& s, const mesh::Mesh& m, cons
 TEST_CASE("slotless sinusoidal winding: inductance within 0.5 % of the closed form, converging") {
   testing::TwoSheetMachine s;
   const double exact = closed_form(s);
-  CHECK(exact == doctest::Approx(12.21987e-3).epsilon(1e-6).scale(0));  // CHECKS.md §4
+  CHECK(exact == doctest::Approx(12.21987e-3).epsilon(1e-6).scale(0));  // docs/references.md §4
   double previous_error = INFINITY;
   for (int level = 0; level < 3; ++level) {
     s.level = level;

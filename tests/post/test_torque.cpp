@@ -1,5 +1,5 @@
 // Torque between two sinusoidal current sheets in a slotless gap by Arkkio's method, by the Maxwell
-// stress on the sliding circle and by virtual work, against the closed form of ../shared/CHECKS.md §4
+// stress on the sliding circle and by virtual work, against the closed form of docs/references.md §4
 // ("Torque between two sinusoidal sheets", derived from the classical solutions in K. J. Binns,
 // P. J. Lawrenson, C. W. Trowbridge, The Analytical and Numerical Solution of Electric and Magnetic
 // Fields, Wiley 1992 — from memory).
@@ -47,7 +47,7 @@ testing::SheetSolution solve(const testing::TwoSheetMachine& s, const mesh::Mesh
 }  // namespace
 
 TEST_CASE("two-sheet torque: the closed form gives the published value") {
-  // ../shared/CHECKS.md §4: p = 2, R_r = 49 mm, R_s = 50 mm, K_s = 1e4, K_r = 5e3 A/m, delta = 90°.
+  // docs/references.md §4: p = 2, R_r = 49 mm, R_s = 50 mm, K_s = 1e4, K_r = 5e3 A/m, delta = 90°.
   const testing::TwoSheetMachine s;
   CHECK(sheet_torque(s, kPi / 2) == doctest::Approx(-11.96570).epsilon(1e-6).scale(0));
 }
@@ -62,7 +62,7 @@ TEST_CASE("Arkkio's torque of two sinusoidal sheets: within 0.5 % and converging
     const double t = post::arkkio_torque_static(m, solve(s, m, kPi / 2).a_nodes, 1.0);
     const double error = std::abs(t / exact - 1);
     MESSAGE("level " << level << ": Arkkio " << t << " N m/m, relative error " << error);
-    CHECK(t == doctest::Approx(exact).epsilon(0.005).scale(0));  // CHECKS.md §4 tolerance
+    CHECK(t == doctest::Approx(exact).epsilon(0.005).scale(0));  // docs/references.md §4 tolerance
     CHECK(error < previous_error / 3.5);                         // second order: fourfold per halving
     previous_error = error;
   }

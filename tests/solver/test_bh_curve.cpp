@@ -1,5 +1,5 @@
 // B-H curve: monotone cubic interpolation of H(B), reluctivity and its derivative, energy densities,
-// table checks, and the sampled arctan law of ../shared/CHECKS.md §5.
+// table checks, and the sampled arctan law of docs/references.md §5.
 
 #include <doctest/doctest.h>
 
@@ -130,7 +130,7 @@ TEST_CASE("B-H curve: a table without (0, 0) gets it; bad tables are named by th
   CHECK_THROWS_AS(solver::BhCurve({0, 100, 200, 300}, {0, 1.0, 1.5, 1.4}), std::invalid_argument);
 }
 
-TEST_CASE("sampled arctan law (CHECKS.md §5): interpolation within 0.05 % of the law from 1 A/m to 1e6 A/m") {
+TEST_CASE("sampled arctan law (docs/references.md §5): interpolation within 0.05 % of the law from 1 A/m to 1e6 A/m") {
   const double js = 2.0, mu_ri = 5000.0;
   const solver::BhCurve c = solver::sampled_arctan_law(js, mu_ri, 150, 1e6);
   double worst = 0.0;
@@ -140,6 +140,6 @@ TEST_CASE("sampled arctan law (CHECKS.md §5): interpolation within 0.05 % of th
   }
   MESSAGE("largest relative error of the sampled law: " << worst);
   CHECK(worst < 5e-4);
-  // CHECKS.md §5 (derived from Ampère's law): H = 100 A / (2 pi 20 mm) gives B = 1.683459 T.
+  // docs/references.md §5 (derived from Ampère's law): H = 100 A / (2 pi 20 mm) gives B = 1.683459 T.
   CHECK(c.b_of_h(100 / (2 * std::numbers::pi * 0.02)) == doctest::Approx(1.683459).epsilon(5e-4).scale(0));
 }

@@ -8,10 +8,10 @@
 #include <complex>
 #include <numbers>
 
-#include "post/eddy_quantities.hpp"
 #include "solver/assemble.hpp"
-#include "solver/eddy.hpp"
+#include "solver/time_harmonic.hpp"
 #include "support/conducting_wall.hpp"
+#include "support/joule_loss.hpp"
 #include "support/polar_mesh.hpp"
 
 using namespace tf;
@@ -25,7 +25,7 @@ constexpr double kMu0 = 4e-7 * kPi;
 }  // namespace
 
 TEST_CASE("half-space: |H| falls as e^(-x/delta) and the loss per area is H0^2 / (2 sigma delta)") {
-  // Closed form (R. L. Stoll, The Analysis of Eddy Currents, 1974; ../shared/CHECKS.md §4, from
+  // Closed form (R. L. Stoll, The Analysis of Eddy Currents, 1974, from
   // memory): copper, sigma = 5.80e7 S/m, 50 Hz: delta = 9.3459 mm, and H0 = 1000 A/m (peak) gives
   // 0.922403 W/m^2. The wall is a copper tube ten skin depths thick whose inner face, 2 m from the
   // axis, is 200 skin depths round (curvature a 0.1 % effect); a line current on the axis makes
@@ -43,14 +43,15 @@ TEST_CASE("half-space: |H| falls as e^(-x/delta) and the loss per area is H0^2 /
                                                  {r_wall + wall, 100, mesh::RegionKind::stator_iron, "wall"},
                                                  {3.0, 20, mesh::RegionKind::outer_air, "outside"}},
                                            512);
-  auto [mat, s] = testing::conductor_system(m, sigma);
+  auto [materials, coefficients, s] = testing::conductor_system(m, sigma);
   const double wire_area = mesh::region_areas(m)[0];
   s.unit_loads.resize(s.dofs.n_dofs, 2);
   s.unit_loads.col(0) = solver::region_current_load(m, s.dofs, {current / wire_area, 0, 0, 0, 0});
   s.unit_loads.col(1) = solver::region_current_load(m, s.dofs, {0, 0, 0, 1.0, 0});  // J_s = 1 A/m^2 in the wall
-  solver::EddyStats stats;
-  const auto by_wire = solver::solve_eddy(m, s, {1.0, 0.0}, f, {0.0}, stats)[0].potential;
-  const auto by_field = solver::solve_eddy(m, s, {0.0, 1.0}, f, {0.0}, stats)[0].potential;
+  solver::TimeHarmonicStats stats;
+  const auto solutions = solver::solve_time_harmonic(m, s, {{{1.0, 0.0}, omega, 0.0}, {{0.0, 1.0}, omega, 0.0}}, stats);
+  const Eigen::VectorXcd& by_wire = solutions[0];
+  const Eigen::VectorXcd& by_field = solutions[1];
   auto wall_current = [&](const Eigen::VectorXcd& a, double source) {
     Complex sum = 0.0;
     for (int t = 0; t < m.n_triangles(); ++t) {
@@ -63,11 +64,10 @@ TEST_CASE("half-space: |H| falls as e^(-x/delta) and the loss per area is H0^2 /
   };
   const Complex c = -wall_current(by_wire, 0.0) / wall_current(by_field, 1.0);
   const Eigen::VectorXcd a = by_wire + c * by_field;
-  // Loss of J = c J_s - j omega sigma A: the loss routine integrates |sigma j omega A'|^2/(2 sigma)
+  // Loss of J = c J_s - j omega sigma A: region_joule_losses integrates |sigma j omega A'|^2/(2 sigma)
   // with A' = A + j c / (omega sigma).
   const Eigen::VectorXcd shifted = a.array() + Complex(0.0, 1.0) * c / (omega * sigma);
-  const auto loss = post::region_losses(m, shifted, solver::region_conductivity(m, mat), std::vector<bool>(5, false),
-                                        omega, 0.0, 1.0);
+  const auto loss = testing::region_joule_losses(m, shifted, coefficients.sigma, omega);
   const double r_out = r_wall + wall;
   const double per_area = loss[3] / (2 * kPi * (r_wall + r_wall * r_wall / r_out));  // both faces, H0 and H0 R/R2
   MESSAGE("loss per area " << per_area << " W/m^2 (closed form 0.922403)");

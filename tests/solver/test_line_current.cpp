@@ -14,7 +14,7 @@
 using namespace tf;
 
 TEST_CASE("one conductor in air: B_theta = mu0 I / (2 pi r), 100 A at 10 mm gives 2.000 mT") {
-  // Source: Ampère's circuital law; value from ../shared/CHECKS.md §4 (line current).
+  // Source: Ampère's circuital law; value from docs/references.md §4 (line current).
   const double current = 100.0, r_wire = 0.002, mu0 = 4e-7 * std::numbers::pi;
   const mesh::Mesh m = testing::polar_mesh(0.0, {{r_wire, 8, mesh::RegionKind::coil, "wire"},
                                                  {0.012, 40, mesh::RegionKind::gap, "air"},

@@ -1,5 +1,5 @@
 // A nonlinear iron cylinder in a uniform transverse field magnetizes uniformly; its interior state
-// lies where the B-H curve meets B_in + mu0 H_in = 2 B0 (../shared/CHECKS.md §5, derived from the
+// lies where the B-H curve meets B_in + mu0 H_in = 2 B0 (docs/references.md §5, derived from the
 // classical linear solution, e.g. Binns, Lawrenson, Trowbridge 1992, from memory).
 
 #include <doctest/doctest.h>
@@ -72,7 +72,7 @@ double cylinder_b_in(double b0, const solver::BhCurve& iron, solver::NewtonRepor
 
 }  // namespace
 
-TEST_CASE("nonlinear cylinder in a uniform field: B_in where B + mu0 H = 2 B0 meets the curve (CHECKS.md §5)") {
+TEST_CASE("nonlinear cylinder in a uniform field: B_in where B + mu0 H = 2 B0 meets the curve (docs/references.md §5)") {
   const solver::BhCurve iron = solver::sampled_arctan_law(2.0, 5000.0, 150, 1e6);
   solver::NewtonReport report;
   const double b_half = cylinder_b_in(0.5, iron, report);

@@ -50,9 +50,8 @@ TEST_CASE("nonlinear solver without B-H curves reproduces the linear solve to 1e
   const Eigen::VectorXd expected = solver::superpose(linear, currents);
 
   const solver::DofMap d = solver::number_dofs(m);
-  std::vector<solver::RegionLaw> laws;
-  for (double nu : solver::region_reluctivity(m, mat)) laws.push_back({nu, nullptr});
-  solver::NonlinearSolver s(m, d, laws);
+  const solver::RegionCoefficients coefficients = solver::region_coefficients(m, mat);
+  solver::NonlinearSolver s(m, d, solver::region_laws(coefficients));
   const Eigen::VectorXd f = solver::phase_loads(m, d, w) * Eigen::Vector2d(currents[0], currents[1]);
   Eigen::VectorXd a;
   const solver::NewtonReport report = s.solve(f, a);
@@ -72,8 +71,8 @@ TEST_CASE("nonlinear solver: a turned rotor (new pattern, same unknowns) reuses 
   const mesh::Mesh m = two_coil_mesh();
   const mesh::Winding w = two_phase_winding();
   solver::Materials mat;
-  std::vector<solver::RegionLaw> laws;
-  for (double nu : solver::region_reluctivity(m, mat)) laws.push_back({nu, nullptr});
+  const solver::RegionCoefficients coefficients = solver::region_coefficients(m, mat);
+  const std::vector<solver::RegionLaw> laws = solver::region_laws(coefficients);
   const solver::DofMap d0 = solver::number_dofs(m, 0), d5 = solver::number_dofs(m, 5);
   solver::NonlinearSolver s(m, d0, laws);
   s.set_dofs(d5);  // reanalyse_same_ordering
@@ -85,6 +84,6 @@ TEST_CASE("nonlinear solver: a turned rotor (new pattern, same unknowns) reuses 
   Eigen::VectorXd b;
   fresh.solve(f, b);
   CHECK((a - b).norm() <= 1e-12 * b.norm());
-  const auto K5 = solver::assemble_stiffness(m, d5, solver::region_reluctivity(m, mat));
+  const auto K5 = solver::assemble_stiffness(m, d5, coefficients.nu);
   CHECK((K5 * a - f).norm() <= 1e-10 * f.norm());
 }

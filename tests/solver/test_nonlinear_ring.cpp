@@ -1,6 +1,6 @@
 // Nonlinear iron ring round a line current: Ampère's law gives H_theta = I/(2 pi r) whatever the
 // material, so B(r) = B(H(r)) and the flux per metre is the integral of B over the ring's width
-// (../shared/CHECKS.md §5, derived). Also: Newton's convergence from a = 0.
+// (docs/references.md §5, derived). Also: Newton's convergence from a = 0.
 
 #include <doctest/doctest.h>
 
@@ -114,7 +114,7 @@ void check_newton(const solver::NewtonReport& r) {
 
 }  // namespace
 
-TEST_CASE("nonlinear ring round a line current, I = 100 A: B and flux against Ampère's law (CHECKS.md §5)") {
+TEST_CASE("nonlinear ring round a line current, I = 100 A: B and flux against Ampère's law (docs/references.md §5)") {
   const solver::BhCurve iron = solver::sampled_arctan_law(2.0, 5000.0, 150, 1e6);
   const RingResult r = solve_ring(100.0, iron);
   MESSAGE("iterations " << r.report.iterations << ", residuals" << history(r.report));
@@ -125,7 +125,7 @@ TEST_CASE("nonlinear ring round a line current, I = 100 A: B and flux against Am
   CHECK(r.flux == doctest::Approx(3.076065e-2).epsilon(0.002).scale(0));
 }
 
-TEST_CASE("nonlinear ring round a line current, I = 10000 A: deep saturation (CHECKS.md §5)") {
+TEST_CASE("nonlinear ring round a line current, I = 10000 A: deep saturation (docs/references.md §5)") {
   const solver::BhCurve iron = solver::sampled_arctan_law(2.0, 5000.0, 150, 1e6);
   const RingResult r = solve_ring(10000.0, iron);
   MESSAGE("iterations " << r.report.iterations << ", residuals" << history(r.report));

@@ -83,7 +83,7 @@ TEST_CASE("synchronous magnet motor: three torque methods agree, fluxes balanced
   CHECK(std::abs(mean(t.at("torque_circle_N_m")) / arkkio - 1.0) < 0.02);
   CHECK(std::abs(mean(t.at("torque_virtual_work_N_m")) / arkkio - 1.0) < 0.02);
   // A balanced winding under balanced currents links balanced fluxes: equal amplitudes, phases
-  // 120° apart in the order of the currents (../shared/CHECKS.md §3; DESIGN.md §5 conventions).
+  // 120° apart in the order of the currents (docs/references.md §3; DEVELOPERS.md conventions).
   const auto a = fundamental(t.at("flux_linkage_A_Wb"));
   const auto b = fundamental(t.at("flux_linkage_B_Wb"));
   const auto c = fundamental(t.at("flux_linkage_C_Wb"));

@@ -29,11 +29,10 @@ input::Case load(const std::string& name) { return input::read_case(std::string(
 
 study::SlipStudy solve(const input::Case& c) {
   const auto [m, w] = study::mesh_and_wind(c);
-  solver::EddyStats stats;
+  solver::TimeHarmonicStats stats;
   return study::solve_slip_study(c, m, w, stats);
 }
 
-double error(double value, double reference) { return std::abs(value / reference - 1.0); }
 
 /// Slip of the largest total torque: a parabola through the best grid point and its neighbours.
 double peak_slip(const std::vector<post::SpeedResult>& rows) {
@@ -50,45 +49,7 @@ double peak_slip(const std::vector<post::SpeedResult>& rows) {
 
 }  // namespace
 
-TEST_CASE("slip method on TEAM 30a: the published torques, EMF and rotor losses at seven speeds") {
-  // References: K. R. Davey, TEAM Problem 30a (CHECKS.md §1), tests/support/team30a.hpp.
-  // The smooth rotor is rotationally invariant, so the slip method is exact for the fundamental.
-  // It is not for the space harmonics of the six-sector winding (B_r 5th 9 %, 7th 2 % of the
-  // fundamental, CHECKS.md §1): harmonic nu turns at omega / (nu p) and the rotor sees it at its
-  // own slip, while the method solves every harmonic at the fundamental's slip frequency. At
-  // standstill all of them see omega and the method is exact; the error grows with speed.
-  // Measured on this mesh: torque 0.68 % at 200 rad/s, 1.5-2.0 % at 400-600, 2.8, 4.0, 5.0 % at
-  // 800, 1000, 1200 rad/s (the motion term on the same mesh: 0.17 % at worst, test_team30a.cpp).
-  input::Case c = load("team30a_three_phase.toml");
-  c.mesh.fineness = 1.0;
-  const study::SlipStudy study = solve(c);
-  REQUIRE(study.rows.size() == testing::kTeam30a.size());
-  double previous = 0.0;
-  for (std::size_t k = 0; k < study.rows.size(); ++k) {
-    const auto& ref = testing::kTeam30a[k];
-    const auto& r = study.rows[k];
-    const double e = error(r.torque, ref.torque);
-    INFO("speed " << ref.speed << ": torque " << r.torque << " (" << e << "), EMF " << r.emf_rms[0] << " ("
-                  << error(r.emf_rms[0], ref.emf) << "), rotor loss " << r.rotor_loss << " ("
-                  << error(r.rotor_loss, ref.rotor_loss) << ")");
-    if (ref.speed == 0.0) {
-      CHECK(e < 0.005);  // all harmonics at omega: as good as the motion term
-      CHECK(error(r.rotor_loss, ref.rotor_loss) < 0.01);  // CHECKS.md: losses +- 1 %
-    } else if (ref.speed <= 600.0) {
-      CHECK(e < 0.02);  // asked: 2 %
-    } else {
-      CHECK(e < 0.06);   // the harmonics' share (above)
-      CHECK(e > previous);
-    }
-    previous = e;
-    CHECK(error(r.emf_rms[0], ref.emf) < 0.005);  // CHECKS.md: EMF +- 0.5 %, at every speed
-    // A balanced supply is all forward: the backward component carries nothing.
-    CHECK(r.components[1].torque == 0.0);
-    // Discrete energy identity in the rotor frame: input power at omega = rotor loss / s.
-    const auto& f = r.components[0];
-    CHECK(std::abs(f.input_power * f.slip - f.rotor_loss) < 1e-9 * f.rotor_loss);
-  }
-}
+// TEAM 30a by the slip method against the published values: tests/post/test_team30a_eddy.cpp.
 
 TEST_CASE("slip method: single-phase supply at standstill, forward and backward torques cancel") {
   // A pulsating field is a forward and a backward wave of equal amplitude; at standstill both see
@@ -123,7 +84,7 @@ TEST_CASE("slip method on a 30-bar cage: rotor loss = slip x air-gap power, peak
   for (const auto& r : study.rows) {
     for (const auto& x : r.components) {
       if (x.rotor_loss == 0.0) continue;  // the backward wave of a balanced supply
-      // Rotor Joule loss = slip x air-gap power, exactly per wave (CHECKS.md §6; e.g. Fitzgerald,
+      // Rotor Joule loss = slip x air-gap power, exactly per wave (docs/references.md §6; e.g. Fitzgerald,
       // Kingsley, Umans, Electric Machinery, induction-machine chapter, from memory). The loss is
       // integrated from J = -j s omega sigma A, the gap power from Arkkio's torque.
       INFO("speed " << r.rotor_speed << ", slip " << x.slip << ": loss " << x.rotor_loss << " W, s P_gap "

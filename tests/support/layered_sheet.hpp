@@ -3,7 +3,7 @@
 // layered model: rotor iron (0..R_r, mu_r), air gap (R_r..R_s), stator iron (R_s..R_o, mu_s), A = 0
 // at R_o. In each layer A = (a r^p + b r^-p) cos(p theta); the five coefficients follow from
 // continuity of A and of H_theta at R_r, continuity of A and the jump H_theta,out - H_theta,in = K
-// at R_s, and A(R_o) = 0. With R_o -> infinity this is the closed form of ../shared/CHECKS.md §4
+// at R_s, and A(R_o) = 0. With R_o -> infinity this is the closed form of docs/references.md §4
 // (K. J. Binns, P. J. Lawrenson, C. W. Trowbridge, The Analytical and Numerical Solution of
 // Electric and Magnetic Fields, Wiley 1992 — from memory); the test checks that limit too.
 

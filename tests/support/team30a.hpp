@@ -1,6 +1,6 @@
 #pragma once
 // TEAM Workshop Problem 30a reference values (K. R. Davey, "TEAM Problem 30a: Induction Motor
-// Analyses", International Compumag Society; as tabulated in ../shared/CHECKS.md §1, reproduced
+// Analyses", International Compumag Society; as tabulated in docs/references.md §1, reproduced
 // there to 4-6 digits by an exact Fourier-Bessel solution): per metre, at the rotor speeds below.
 
 #include <array>

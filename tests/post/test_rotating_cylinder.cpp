@@ -8,7 +8,7 @@
 #include <numbers>
 
 #include "post/eddy_quantities.hpp"
-#include "solver/eddy.hpp"
+#include "solver/time_harmonic.hpp"
 #include "support/polar_mesh.hpp"
 #include "support/sheet_load.hpp"
 
@@ -31,7 +31,7 @@ std::pair<Complex, Complex> bessel_i1(Complex z) {
   return {sum, dsum};
 }
 
-/// Closed form (../shared/CHECKS.md §4, derived; cf. Woodson & Melcher, Electromechanical Dynamics,
+/// Closed form (derived; cf. Woodson & Melcher, Electromechanical Dynamics,
 /// 1968, from memory): T = -(2 pi a^2 B0^2 / mu0) Im rho, rho = (1 - kappa)/(1 + kappa),
 /// kappa = z I1'(z)/I1(z), z = a sqrt(j omega_s mu0 sigma).
 double cylinder_torque(double a, double sigma, double b0, double slip_omega) {
@@ -61,9 +61,11 @@ double fe_torque(double a, double sigma, double b0, double omega, double rotor_s
   mat.sleeve_sigma = sigma;
   mesh::Winding none;
   none.spec.n_phases = 1;
-  solver::EddySystem s = solver::assemble_eddy(m, none, mat);
+  const solver::RegionCoefficients coefficients = solver::region_coefficients(m, mat);
+  solver::TimeHarmonicSystem s = solver::assemble_time_harmonic(m, none, coefficients);
   // A sheet K cos(theta - omega t) = Re(K e^{-j theta} e^{j omega t}) at r_sheet makes the uniform field
-  // mu0 K / 2 inside (air-cored sheet, ../shared/CHECKS.md §4), less (r_sheet/1 m)^2 for the far boundary.
+  // mu0 K / 2 inside (air-cored sheet, p = 1: classical, e.g.
+  // Binns, Lawrenson, Trowbridge 1992, from memory), less (r_sheet/1 m)^2 for the far boundary.
   const double k = 2 * b0 / kMu0 / (1 - std::pow(r_sheet / 1.0, 2));
   std::vector<int> ring;
   for (int node = 0; node < m.n_nodes(); ++node)
@@ -71,15 +73,15 @@ double fe_torque(double a, double sigma, double b0, double omega, double rotor_s
   s.unit_loads.resize(s.dofs.n_dofs, 2);
   s.unit_loads.col(0) = testing::sheet_load(m, s.dofs, ring, [&](double th) { return k * std::cos(th); });
   s.unit_loads.col(1) = testing::sheet_load(m, s.dofs, ring, [&](double th) { return k * std::sin(th); });
-  solver::EddyStats stats;
-  const auto sol = solver::solve_eddy(m, s, {Complex(1, 0), Complex(0, -1)}, omega / (2 * kPi), {rotor_speed}, stats);
-  return post::arkkio_torque(m, sol[0].potential, 1.0);
+  solver::TimeHarmonicStats stats;
+  const auto sol = solver::solve_time_harmonic(m, s, {{{Complex(1, 0), Complex(0, -1)}, omega, rotor_speed}}, stats);
+  return post::arkkio_torque(m, sol[0], 1.0);
 }
 
 }  // namespace
 
 TEST_CASE("the closed form reproduces the published cylinder torques") {
-  // ../shared/CHECKS.md §4: aluminium, a = 30 mm, sigma = 3.72e7 S/m, B0 = 0.1 T.
+  // The closed form above, derived here: aluminium, a = 30 mm, sigma = 3.72e7 S/m, B0 = 0.1 T.
   CHECK(cylinder_torque(0.03, 3.72e7, 0.1, 2 * kPi * 1) == doctest::Approx(1.483984).epsilon(1e-5).scale(0));
   CHECK(cylinder_torque(0.03, 3.72e7, 0.1, 2 * kPi * 10) == doctest::Approx(12.40679).epsilon(1e-5).scale(0));
 }

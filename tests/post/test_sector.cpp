@@ -25,7 +25,8 @@ using namespace tf;
 
 namespace {
 
-/// The analytic arctan law of ../shared/CHECKS.md §5 (J_s = 2 T, mu_ri = 5000), sampled.
+/// The analytic arctan law B(H) = mu0 H + (2 J_s/pi) arctan(pi (mu_ri - 1) mu0 H / (2 J_s)) (J_s = 2 T,
+/// mu_ri = 5000), sampled.
 const solver::BhCurve& iron_curve() {
   static const solver::BhCurve curve = solver::sampled_arctan_law(2.0, 5000, 60, 1e6);
   return curve;
@@ -42,7 +43,7 @@ NonlinearField nonlinear_field(const mesh::Mesh& m, const mesh::Geometry& g, con
                                const std::vector<double>& currents, int shift) {
   const solver::Materials mat{};
   const solver::DofMap d = solver::number_dofs(m, shift);
-  const std::vector<double> nu = solver::region_reluctivity(m, mat);
+  const std::vector<double> nu = solver::region_coefficients(m, mat).nu;
   std::vector<solver::RegionLaw> laws;
   for (std::size_t r = 0; r < m.regions.size(); ++r) {
     const mesh::RegionKind k = m.regions[r].kind;
@@ -113,7 +114,7 @@ TEST_CASE("sector model, saturated iron (Newton): the full machine's field, torq
 TEST_CASE("sector model in the rotor-position solver: torque, fundamental, flux linkage and virtual work") {
   const Models& s = models();
   const solver::BhCurve& c = iron_curve();
-  const solver::BhTable table{c.table_h(), c.table_b(), "arctan law of CHECKS.md §5, sampled", 1.0};
+  const solver::BhTable table{c.table_h(), c.table_b(), "arctan law of docs/references.md §5, sampled", 1.0};
   const solver::Materials mat{.stator_iron_bh = table, .rotor_iron_bh = table};
   const solver::MagnetLayout layout = solver::magnet_layout(s.g.rotor);
   solver::MotionSolver full(s.full, s.w, mat, layout);
