@@ -112,7 +112,7 @@ int main(int argc, char** argv) {
   std::vector<std::string> collect_dirs;
   auto* sweep = cli.add_subcommand("sweep", "run every variant of a sweep file, several at a time, and rank them");
   sweep->add_option("SWEEP_FILE", case_path, "sweep file (TOML): a base case and the keys to vary")->required();
-  sweep->add_option("--out", out_dir, "output folder (default results/<study name>)");
+  sweep->add_option("--out", out_dir, "output folder (default results/<sweep file name>)");
   sweep->add_option("-j,--jobs", sweep_options.jobs, "variants at once (default: the number of cores)")
       ->check(CLI::Range(1, 1024));
   sweep->add_flag("--dry-run", sweep_options.dry_run, "list the variants and any invalid ones; run nothing");

@@ -27,7 +27,7 @@ const char* rule_name(mesh::LayoutRule r) {
 std::string side_label(const mesh::CoilSide& s) { return (s.direction > 0 ? "+" : "-") + post::phase_name(s.phase); }
 
 std::string q_text(const mesh::Winding& w) {
-  const int num = w.n_slots, den = w.spec.n_poles * w.spec.n_phases, g = std::gcd(num, den);
+  const int num = w.n_positions, den = w.spec.n_poles * w.spec.n_phases, g = std::gcd(num, den);
   return den / g == 1 ? fmt::format("{}", num / g) : fmt::format("{}/{}", num / g, den / g);
 }
 
@@ -35,16 +35,16 @@ void print_header(const mesh::Winding& w, bool sectors, std::ostream& out) {
   const char* slots = sectors ? "winding sectors" : "slots";
   const auto& spec = w.spec;
   if (w.rule == mesh::LayoutRule::pole_coils)
-    out << fmt::format("{} salient poles, a {}-pole field, {} phases", w.n_slots, spec.n_poles, spec.n_phases);
+    out << fmt::format("{} salient poles, a {}-pole field, {} phases", w.n_positions, spec.n_poles, spec.n_phases);
   else
-    out << fmt::format("{} {}, {} poles, {} phases, {} layer{}", w.n_slots, slots, spec.n_poles, spec.n_phases,
+    out << fmt::format("{} {}, {} poles, {} phases, {} layer{}", w.n_positions, slots, spec.n_poles, spec.n_phases,
                        spec.n_layers, spec.n_layers > 1 ? "s" : "");
   if (w.rule != mesh::LayoutRule::table && w.rule != mesh::LayoutRule::pole_coils)
     out << fmt::format(", coil pitch {} {}", spec.coil_pitch, slots);
   if (w.rule == mesh::LayoutRule::pole_coils)
     out << "\n";
   else
-    out << fmt::format(" (pole pitch {:g} {})\n", static_cast<double>(w.n_slots) / spec.n_poles, slots);
+    out << fmt::format(" (pole pitch {:g} {})\n", static_cast<double>(w.n_positions) / spec.n_poles, slots);
   out << fmt::format("layout: {}; q = {} slots per pole per phase; periodicity t = gcd(Q, p) = {}\n",
                      rule_name(w.rule), q_text(w), w.periodicity());
   out << fmt::format("{:g} series turns per phase; {} parallel path{}\n\n", w.series_turns(), spec.parallel_paths,
@@ -56,7 +56,7 @@ void print_table(const mesh::Winding& w, std::ostream& out) {
   for (int l = 1; l <= w.spec.n_layers; ++l) out << fmt::format("  layer {}", l);
   out << (w.rule == mesh::LayoutRule::pole_coils ? "   (layer 1: counter-clockwise side of the pole body)\n" : "\n");
   out << "(+: positive phase current flows along +z, out of the page)\n";
-  for (int s = 1; s <= w.n_slots; ++s) {
+  for (int s = 1; s <= w.n_positions; ++s) {
     out << fmt::format("{:>4}", s);
     for (int l = 1; l <= w.spec.n_layers; ++l) {
       std::string label = "-";
@@ -99,7 +99,7 @@ void print_json(const mesh::Winding& w, std::ostream& out) {
   }
   for (const auto& [n, k] : mesh::space_orders(w, kMaxOrder * w.spec.pole_pairs()))
     orders.push_back({{"mechanical_order", n}, {"winding_factor", k}});
-  const nlohmann::json j = {{"slots", w.n_slots},
+  const nlohmann::json j = {{"slots", w.n_positions},
                             {"poles", w.spec.n_poles},
                             {"phases", w.spec.n_phases},
                             {"layers", w.spec.n_layers},

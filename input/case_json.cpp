@@ -76,11 +76,11 @@ nlohmann::json rotor_parts_json(const mesh::RotorGeometry& r) {
               {"magnetization", r.magnets.direction == mesh::Magnetization::radial ? "radial" : "parallel"}}}};
   if (r.kind == mesh::RotorKind::slotted)
     return {{"bars",
-             {{"count", r.slots.count},
-              {"width_m", r.slots.width},
-              {"depth_m", r.slots.depth},
-              {"bridge_m", r.slots.bridge},
-              {"opening_m", r.slots.opening_width}}}};
+             {{"count", r.bars.count},
+              {"width_m", r.bars.width},
+              {"depth_m", r.bars.depth},
+              {"bridge_m", r.bars.bridge},
+              {"opening_m", r.bars.opening_width}}}};
   return nlohmann::json::object();
 }
 
@@ -94,11 +94,11 @@ nlohmann::json stator_json(const mesh::StatorGeometry& s) {
                  // Where A = 0 is imposed: the outer surface unless air surrounds the stator.
                  {"boundary_radius_m", std::max(s.outer_radius, s.boundary_radius)}};
   if (s.kind == mesh::StatorKind::slotless) {
-    stator["belts"] = {{"count", s.n_slots},
+    stator["belts"] = {{"count", s.n_positions},
                        {"span_deg", s.belts.span * 180.0 / std::numbers::pi},
                        {"outer_radius_m", s.belts.outer_radius}};
   } else if (s.kind == mesh::StatorKind::salient) {
-    stator["poles"] = {{"count", s.n_slots},
+    stator["poles"] = {{"count", s.n_positions},
                        {"shoe_arc_deg", s.poles.shoe_arc * 180.0 / std::numbers::pi},
                        {"shoe_height_m", s.poles.shoe_height},
                        {"body_width_m", s.poles.body_width},
@@ -114,7 +114,7 @@ nlohmann::json stator_json(const mesh::StatorGeometry& s) {
       slot["tip_height_m"] = s.slot.tip_height;
       slot["wedge_height_m"] = s.slot.wedge_height;
     }
-    stator["slots"] = s.n_slots;
+    stator["slots"] = s.n_positions;
     stator["slot"] = slot;
   }
   return stator;

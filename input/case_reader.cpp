@@ -41,16 +41,16 @@ mesh::Slot read_slot(const Fields& stator) {
   return slot;
 }
 
-/// [stator.poles] of a salient-pole stator. The count goes to n_slots: to the winding, each pole
+/// [stator.poles] of a salient-pole stator. The count goes to n_positions: to the winding, each pole
 /// (with its two coil sides) is a slot.
 void read_poles(const Fields& stator, mesh::StatorGeometry& s) {
   const Fields f = stator.table(
       "poles", {"count", "shoe_arc_deg", "shoe_height", "body_width", "body_height", "coil_width", "coil_height"});
-  s.n_slots = f.integer("count", {.min = 2, .max = 200});
-  if (s.n_slots % 2 != 0) f.fail("count", "an odd number", "an even number of poles");
+  s.n_positions = f.integer("count", {.min = 2, .max = 200});
+  if (s.n_positions % 2 != 0) f.fail("count", "an odd number", "an even number of poles");
   // Up to, not including, the pole pitch; that the shoes leave room between them is a consistency check.
   const RealRange arc{
-      .min = 0, .max = 360.0 / s.n_slots, .min_excluded = true, .max_excluded = true, .unit = "degrees"};
+      .min = 0, .max = 360.0 / s.n_positions, .min_excluded = true, .max_excluded = true, .unit = "degrees"};
   s.poles.shoe_arc = f.real("shoe_arc_deg", arc) * std::numbers::pi / 180.0;
   s.poles.shoe_height = f.real("shoe_height", slot_size);
   s.poles.body_width = f.real("body_width", slot_size);
@@ -59,14 +59,14 @@ void read_poles(const Fields& stator, mesh::StatorGeometry& s) {
   s.poles.coil_height = f.real("coil_height", slot_size);
 }
 
-/// [stator.belts] of a slotless stator. The count goes to n_slots: to the winding, each conductor
+/// [stator.belts] of a slotless stator. The count goes to n_positions: to the winding, each conductor
 /// sector is a slot.
 void read_belts(const Fields& stator, mesh::StatorGeometry& s) {
   const Fields f = stator.table("belts", {"count", "span_deg", "outer_radius"});
-  s.n_slots = f.integer("count", {.min = 2, .max = 2000});
+  s.n_positions = f.integer("count", {.min = 2, .max = 2000});
   // Up to, not including, the belt pitch; that the sectors leave room between them is a consistency check.
   const RealRange arc{
-      .min = 0, .max = 360.0 / s.n_slots, .min_excluded = true, .max_excluded = true, .unit = "degrees"};
+      .min = 0, .max = 360.0 / s.n_positions, .min_excluded = true, .max_excluded = true, .unit = "degrees"};
   s.belts.span = f.real("span_deg", arc) * std::numbers::pi / 180.0;
   // Only the plain range here; "between the bore and the outer radius" is a consistency check.
   s.belts.outer_radius = f.real("outer_radius", radius);
@@ -107,7 +107,7 @@ mesh::StatorGeometry read_stator(const Fields& root) {
   } else if (s.kind == mesh::StatorKind::slotless) {
     read_belts(f, s);
   } else {
-    s.n_slots = f.integer("slots", {.min = 3, .max = 2000});
+    s.n_positions = f.integer("slots", {.min = 3, .max = 2000});
     s.slot = read_slot(f);
   }
   return s;

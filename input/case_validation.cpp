@@ -71,7 +71,7 @@ std::optional<Problem> slot_problem(const mesh::StatorGeometry& s) {
   const std::string where =
       semi_closed ? fmt::format("behind the tooth tips, at r = {}", mm(r_body)) : "at the bore";
   const ToothCheck body{"stator.slot.width", "slot", "teeth", "a width"};
-  if (auto p = tooth_problem(body, r_body, slot.width, s.n_slots, where)) return p;
+  if (auto p = tooth_problem(body, r_body, slot.width, s.n_positions, where)) return p;
   if (!semi_closed) return std::nullopt;
 
   if (slot.opening_width >= slot.width)
@@ -79,7 +79,7 @@ std::optional<Problem> slot_problem(const mesh::StatorGeometry& s) {
                    fmt::format("the opening is not narrower than the slot width ({})", mm(slot.width)),
                    fmt::format("an opening below {}", mm(slot.width))};
   const ToothCheck tips{"stator.slot.opening", "opening", "tooth tips", "an opening"};
-  if (auto p = tooth_problem(tips, s.bore_radius, slot.opening_width, s.n_slots, "at the bore")) return p;
+  if (auto p = tooth_problem(tips, s.bore_radius, slot.opening_width, s.n_positions, "at the bore")) return p;
 
   const double closed = slot.tip_height + slot.wedge_height;
   if (slot.depth - closed < min_coil_share * slot.depth)
@@ -97,7 +97,7 @@ std::string degrees(double radians) { return fmt::format("{:.2f} degrees", radia
 /// The iron of a salient pole: room between neighbouring shoes, a shoe reaching past the body on
 /// both sides, and a yoke behind the bodies.
 std::optional<Problem> pole_iron_problem(const mesh::StatorGeometry& s, const mesh::PoleOutline& o) {
-  const double pitch = 2.0 * std::numbers::pi / s.n_slots;
+  const double pitch = 2.0 * std::numbers::pi / s.n_positions;
   // Neighbouring shoes face each other with radial edges, so they are closest at the bore.
   const double shoe_gap = 2.0 * s.bore_radius * std::sin(0.5 * pitch - o.half_shoe_arc);
   if (shoe_gap < min_clearance)
@@ -141,7 +141,7 @@ std::optional<Problem> pole_coil_problem(const mesh::StatorGeometry& s, const me
                    fmt::format("a coil height at most {}", mm(p.body_height))};
   // A coil side's outer edge is parallel to the pole centre line, so it comes closest to the line
   // halfway to the next pole at its inner corner; the next pole's coil side mirrors it there.
-  const double half_pitch = std::numbers::pi / s.n_slots;
+  const double half_pitch = std::numbers::pi / s.n_positions;
   const double to_middle = o.coil_floor * std::sin(half_pitch) - o.coil_outer_y * std::cos(half_pitch);
   if (2.0 * to_middle < min_clearance) {
     const std::string where =
@@ -187,7 +187,7 @@ std::optional<Problem> belts_problem(const mesh::StatorGeometry& s) {
                                mm(s.outer_radius)),
                    expected};
   // Neighbouring sectors face each other with radial edges, so they are closest at the bore.
-  const double pitch = 2.0 * std::numbers::pi / s.n_slots;
+  const double pitch = 2.0 * std::numbers::pi / s.n_positions;
   const double apart = 2.0 * s.bore_radius * std::sin(0.5 * (pitch - s.belts.span));
   if (apart >= min_clearance) return std::nullopt;
   const double widest = pitch - 2.0 * std::asin(min_clearance / (2.0 * s.bore_radius));
@@ -295,7 +295,7 @@ std::optional<Problem> rotor_parts_problem(const mesh::RotorGeometry& r) {
                                mm(r.shaft_radius)),
                    fmt::format("a thickness below {}", mm(iron))};
   if (r.kind != mesh::RotorKind::slotted) return std::nullopt;
-  const mesh::RotorSlots& b = r.slots;
+  const mesh::RotorBars& b = r.bars;
   if (b.bridge + b.depth >= iron)
     return Problem{"rotor.bars.depth",
                    fmt::format("bridge and bar reach r = {}, at or inside the shaft (radius {})",
@@ -362,7 +362,7 @@ std::optional<Problem> paths_problem(const mesh::WindingSpec& w, int n_slots, bo
 }  // namespace
 
 std::optional<Problem> winding_problem(const mesh::WindingSpec& w, const mesh::StatorGeometry& stator) {
-  const int n_slots = stator.n_slots;
+  const int n_slots = stator.n_positions;
   const bool table = !w.explicit_sides.empty();
   // The conductor sectors of a slotless stator are slots to the winding, pitch rules and all.
   const bool slotted = stator.kind != mesh::StatorKind::salient;

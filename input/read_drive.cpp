@@ -51,7 +51,7 @@ mesh::WindingSpec read_winding(const Fields& root, const mesh::StatorGeometry& s
     // A slot table replaces the rule: pitch and turns are in its rows.
     for (const char* key : {"coil_pitch", "turns_per_coil"})
       f.reject(key, "not used with a slot table (sides)", "no such key: the rows give slots and turns");
-    w.explicit_sides = read_slot_table(f, "sides", stator.n_slots, w.n_layers, w.n_phases);
+    w.explicit_sides = read_slot_table(f, "sides", stator.n_positions, w.n_layers, w.n_phases);
     return w;
   }
   // The upper limit of the pitch depends on the slots: checked with the winding layout.

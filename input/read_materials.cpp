@@ -9,6 +9,7 @@
 
 #include "input/toml_arrays.hpp"
 #include "solver/bh_curve.hpp"
+#include "solver/materials.hpp"
 
 namespace tf::input {
 namespace {
@@ -75,7 +76,7 @@ Iron read_iron(const Fields& part, const std::optional<Iron>& fallback) {
   part.reject("relative_permeability", "given beside a B-H curve", "one of the two");
   iron.bh = read_bh_table(part);
   const solver::BhCurve curve(iron.bh->h, iron.bh->b, iron.bh->stacking_factor);
-  iron.mu_r = 1.0 / (4e-7 * std::numbers::pi * curve.reluctivity(0.0).nu);
+  iron.mu_r = 1.0 / (solver::kMu0 * curve.reluctivity(0.0).nu);
   return iron;
 }
 

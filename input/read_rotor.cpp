@@ -25,9 +25,9 @@ mesh::SurfaceMagnets read_magnets(const Fields& rotor) {
 }
 
 /// [rotor.bars]: squirrel-cage bar slots; bar 1 is centred on the +x axis.
-mesh::RotorSlots read_bars(const Fields& rotor) {
+mesh::RotorBars read_bars(const Fields& rotor) {
   const Fields f = rotor.table("bars", {"count", "width", "depth", "bridge", "opening"});
-  mesh::RotorSlots s;
+  mesh::RotorBars s;
   s.count = f.integer("count", {.min = 3, .max = 500});
   s.width = f.real("width", part_size);
   s.depth = f.real("depth", part_size);
@@ -61,7 +61,7 @@ mesh::RotorGeometry read_rotor(const Fields& root) {
   else
     f.reject("magnets", "magnets belong to a rotor of kind \"magnets\"", "no such table, or kind = \"magnets\"");
   if (r.kind == mesh::RotorKind::slotted)
-    r.slots = read_bars(f);
+    r.bars = read_bars(f);
   else
     f.reject("bars", "bars belong to a rotor of kind \"slotted\"", "no such table, or kind = \"slotted\"");
   if (r.kind != mesh::RotorKind::slotted)

@@ -18,7 +18,7 @@ std::vector<std::vector<double>> read_real_rows(const Fields& f, std::string_vie
                                                 std::size_t row_size);
 
 /// The slot table: rows [slot, layer, "phase letter", "+" or "-", turns]. Each slot-layer once;
-/// slots 1..n_slots, layers 1..n_layers, phases A.. of n_phases.
+/// slots 1..n_positions, layers 1..n_layers, phases A.. of n_phases.
 std::vector<mesh::CoilSide> read_slot_table(const Fields& f, std::string_view key, int n_slots, int n_layers,
                                             int n_phases);
 

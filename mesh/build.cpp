@@ -22,19 +22,19 @@ constexpr double kPi = std::numbers::pi;
 /// requested multiple. Arcs of half a turn are drawn in two halves, so their sectors need an even
 /// number of segments: two stator sectors an even count per slot, two rotor sectors a count
 /// divisible by four.
-int nodes_per_slot(int least, int n_slots, int n_rotor, int sliding_multiple) {
+int nodes_per_slot(int least, int n_positions, int n_rotor, int sliding_multiple) {
   int multiple = std::lcm(n_rotor, std::max(1, sliding_multiple));
   if (n_rotor == 2) multiple = std::lcm(multiple, 4);
   for (int per_slot = least;; ++per_slot) {
-    if (n_slots == 2 && per_slot % 2 != 0) continue;
-    if ((static_cast<long>(n_slots) * per_slot) % multiple == 0) return per_slot;
+    if (n_positions == 2 && per_slot % 2 != 0) continue;
+    if ((static_cast<long>(n_positions) * per_slot) % multiple == 0) return per_slot;
   }
 }
 
 /// The narrowest part of a slotted rotor [m]: its bars (the openings and bridges lie at the
 /// surface, where the gap's fine elements reach). Smooth and magnet rotors: no limit.
 double rotor_narrowest(const RotorGeometry& r) {
-  return r.kind == RotorKind::slotted ? r.slots.width : 1e30;
+  return r.kind == RotorKind::slotted ? r.bars.width : 1e30;
 }
 
 /// The narrowest part of the stator that elements far from the gap must still resolve [m]: a slot;
@@ -46,7 +46,7 @@ double narrowest_part(const Geometry& g) {
   if (s.kind == StatorKind::salient)
     return std::min({s.poles.body_width, s.poles.coil_width, rotor_narrowest(g.rotor)});
   if (s.kind == StatorKind::slotted) return std::min(s.slot.width, rotor_narrowest(g.rotor));
-  const double pitch_angle = 2 * kPi / s.n_slots;
+  const double pitch_angle = 2 * kPi / s.n_positions;
   const double conductor = 2 * s.bore_radius * std::sin(0.5 * s.belts.span);
   const double air = 2 * s.bore_radius * std::sin(0.5 * (pitch_angle - s.belts.span));
   const double ring = std::max(s.outer_radius - s.belts.outer_radius, g.gap_length());
@@ -56,12 +56,12 @@ double narrowest_part(const Geometry& g) {
 /// How many copies of the sector c asks for make the machine (1: the full model); throws MeshError
 /// when they do not close up round it.
 int sector_copies(const Geometry& g, const MeshControls& c) {
-  const int n_slots = g.stator.n_slots;
-  const int sector_slots = c.sector_slots > 0 ? c.sector_slots : n_slots;
-  const int copies = n_slots / sector_slots;
-  if (sector_slots > n_slots || n_slots % sector_slots != 0 || (c.anti_periodic && copies % 2 != 0))
+  const int n_positions = g.stator.n_positions;
+  const int sector_slots = c.sector_slots > 0 ? c.sector_slots : n_positions;
+  const int copies = n_positions / sector_slots;
+  if (sector_slots > n_positions || n_positions % sector_slots != 0 || (c.anti_periodic && copies % 2 != 0))
     throw MeshError("a sector of " + std::to_string(c.sector_slots) + " slot pitches does not repeat round " +
-                    std::to_string(n_slots) + " slots" + (c.anti_periodic ? " an even number of times" : ""));
+                    std::to_string(n_positions) + " slots" + (c.anti_periodic ? " an even number of times" : ""));
   if (copies > 1 && g.stator.open_boundary)
     throw MeshError("a sector model cannot have an open boundary; use the full model");
   return copies;
@@ -74,7 +74,7 @@ ElementSizes element_sizes(const Geometry& g, const MeshControls& c) {
   const double across_gap = 4.0 * std::max(1.0, c.fineness);
   // Far from the gap, elements still resolve the narrowest part. The pitch is the slot pitch (the
   // pole pitch of a salient-pole stator, the belt pitch of a slotless one) at the bore.
-  const double pitch = 2 * kPi * s.bore_radius / s.n_slots;
+  const double pitch = 2 * kPi * s.bore_radius / s.n_positions;
   const double largest =
       std::min({pitch / 3.0, narrowest_part(g) / 2.0, (s.outer_radius - s.bore_radius) / 6.0}) / c.fineness;
   return {g.gap_length() / across_gap, largest, 0.25};
@@ -85,7 +85,7 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
   const double r_slide = g.mid_gap_radius();
   const double half_gap = 0.5 * g.gap_length();
   const double r_stator = g.stator.outer_radius;
-  const double half_pitch_angle = kPi / g.stator.n_slots;
+  const double half_pitch_angle = kPi / g.stator.n_positions;
   // Elements are smallest in the gap and grow with the distance from it, up to the largest size.
   // In the air outside the stator the field is smooth and fades, so there they keep growing
   // (about as fast as the radius once far out: a boundary at 1 m costs a few rings of elements),
@@ -105,16 +105,16 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
     if (skin_size > 0.0 && r <= skin_top && r >= skin_bottom) cap = std::min(cap, skin_size);
     return std::min(cap, h.gap + h.grading * away);
   };
-  const int n_slots = g.stator.n_slots;
-  const int sector_slots = c.sector_slots > 0 ? c.sector_slots : n_slots;
+  const int n_positions = g.stator.n_positions;
+  const int sector_slots = c.sector_slots > 0 ? c.sector_slots : n_positions;
   const int copies = sector_copies(g, c);
   const int n_rotor = detail::rotor_sector_count(g, copies);
   if (n_rotor == 0)
     throw MeshError("the rotor does not repeat every " + std::to_string(sector_slots) +
                     " slot pitches; use the full model");
-  const int per_slot = nodes_per_slot(std::max(2, static_cast<int>(std::ceil(2 * kPi * r_slide / n_slots / h.gap))),
-                                      n_slots, n_rotor, c.sliding_multiple);
-  const int n_sliding = n_slots * per_slot;
+  const int per_slot = nodes_per_slot(std::max(2, static_cast<int>(std::ceil(2 * kPi * r_slide / n_positions / h.gap))),
+                                      n_positions, n_rotor, c.sliding_multiple);
+  const int n_sliding = n_positions * per_slot;
   // A runaway fineness would exhaust memory or time; refuse before Gmsh starts.
   const double gap_triangles = 2.0 * n_sliding * g.gap_length() / h.gap;
   if (gap_triangles > 4e6) {
@@ -136,8 +136,8 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
   // nodes face each other; in the image, elements grow towards the centre (infinity).
   const double r_b = g.stator.boundary_radius;
   const double rim = size(r_b, 0.0);
-  int per_arc = std::max(2, static_cast<int>(std::ceil(2 * kPi * r_b / n_slots / rim)));
-  if (n_slots == 2) per_arc += per_arc % 2;
+  int per_arc = std::max(2, static_cast<int>(std::ceil(2 * kPi * r_b / n_positions / rim)));
+  if (n_positions == 2) per_arc += per_arc % 2;
   const detail::SizeRule image_size = [=](double x, double y) {
     return std::min(0.25 * r_b, rim + 0.3 * (r_b - std::hypot(x, y)));
   };
@@ -145,7 +145,7 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
   const double rotor_start = detail::rotor_start_angle(g, stator.start_angle, n_sliding, n_rotor);
   const detail::SectorMesh rotor = detail::mesh_rotor_sector(g, n_rotor, rotor_start, n_sliding / n_rotor, size);
   const detail::SectorMesh image = detail::mesh_exterior_image(g, per_arc, image_size);
-  return detail::replicate(g, stator, n_slots, rotor, n_rotor, &image);
+  return detail::replicate(g, stator, n_positions, rotor, n_rotor, &image);
 }
 
 }  // namespace tf::mesh

@@ -25,12 +25,12 @@ enum class StatorKind {
   slotless,  ///< an air-cored winding annulus of conductor sectors inside a smooth iron ring
 };
 
-/// The winding annulus of a slotless stator: n_slots conductor sectors, sector k centred at
-/// 2*pi*(k - 1)/n_slots, between the bore radius and outer_radius; air between the sectors.
+/// The winding annulus of a slotless stator: n_positions conductor sectors, sector k centred at
+/// 2*pi*(k - 1)/n_positions, between the bore radius and outer_radius; air between the sectors.
 /// The iron ring runs from outer_radius to the stator's outer radius.
 struct SlotlessBelts {
   double outer_radius = 0.0;  ///< [m]
-  double span = 0.0;          ///< angle of each conductor sector [rad], below 2*pi/n_slots
+  double span = 0.0;          ///< angle of each conductor sector [rad], below 2*pi/n_positions
 };
 
 /// Projecting poles of a salient-pole stator. Pole k is centred at 2*pi*(k - 1)/P.
@@ -47,7 +47,7 @@ struct StatorGeometry {
   StatorKind kind = StatorKind::slotted;
   double bore_radius = 0.0;   ///< [m]: the slotted bore, or the circle of the pole faces
   double outer_radius = 0.0;  ///< [m], A = 0 is imposed here
-  int n_slots = 0;            ///< slots Q; for a salient-pole stator, the number of poles P
+  int n_positions = 0;        ///< winding positions round the bore: slots Q, salient poles P, or conductor sectors
   Slot slot;                  ///< slotted stators only
   SalientPoles poles;         ///< salient-pole stators only
   SlotlessBelts belts;        ///< slotless stators only
@@ -97,7 +97,7 @@ struct SurfaceMagnets {
 /// (opening_width = 0) leave an iron bridge of that thickness over the bar; open slots cut a
 /// parallel-sided opening of opening_width through it, from the bar top to the gap (air,
 /// RegionKind::rotor_air). In magnetostatics the bars carry no current.
-struct RotorSlots {
+struct RotorBars {
   int count = 0;               ///< number of bars N
   double width = 0.0;          ///< bar width [m]
   double depth = 0.0;          ///< radial depth of the bar [m]
@@ -112,7 +112,7 @@ struct RotorGeometry {
   double shaft_radius = 0.0;  ///< [m]; 0 for no separate shaft
   double sleeve_thickness = 0.0;  ///< [m]; a conducting sleeve on the iron rotor's surface, 0 for none
   SurfaceMagnets magnets{};   ///< surface_magnet rotors only
-  RotorSlots slots{};         ///< slotted rotors only
+  RotorBars bars{};          ///< slotted (cage) rotors only: the bars in their slots
 };
 
 struct Geometry {

@@ -97,8 +97,8 @@ std::string padded(int number, int largest) {
   return text;
 }
 
-std::string slot_region_name(StatorKind stator, int slot, int n_slots, const PieceKind& kind) {
-  const std::string number = padded(slot, n_slots);
+std::string slot_region_name(StatorKind stator, int slot, int n_positions, const PieceKind& kind) {
+  const std::string number = padded(slot, n_positions);
   if (stator == StatorKind::salient) return "pole_" + number + "_coil_" + std::to_string(kind.layer);
   if (stator == StatorKind::slotless) return "sector_" + number + "_layer_" + std::to_string(kind.layer);
   if (kind.kind == RegionKind::coil) return "slot_" + number + "_layer_" + std::to_string(kind.layer);
@@ -144,11 +144,11 @@ struct RegionTable {
     if (added) regions.push_back({name, kind.kind, number, 0});
     return it->second;
   }
-  int index(const PieceKind& kind, int slot, int n_slots, bool rotor_side) {
+  int index(const PieceKind& kind, int slot, int n_positions, bool rotor_side) {
     const bool per_slot = kind.kind == RegionKind::coil ||
                           (kind.kind == RegionKind::slot_air && stator == StatorKind::slotted);
     const std::string name =
-        per_slot ? slot_region_name(stator, slot, n_slots, kind) : region_name(stator, kind, rotor_side);
+        per_slot ? slot_region_name(stator, slot, n_positions, kind) : region_name(stator, kind, rotor_side);
     const auto [it, added] = by_name.emplace(name, static_cast<int>(regions.size()));
     if (added) regions.push_back({name, kind.kind, per_slot ? slot : 0, kind.kind == RegionKind::coil ? kind.layer : 0});
     return it->second;
@@ -234,8 +234,8 @@ void set_sector_sliding(Mesh& m, const Copies& sc, const Copies& rc, NodeSets& s
 
 Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies, const SectorMesh& rotor,
                int n_rotor_copies, const SectorMesh* image, bool anti_periodic) {
-  const int n_slots = g.stator.n_slots;
-  const bool sector = n_stator_copies < n_slots;  // build.cpp has checked that the sectors close up
+  const int n_positions = g.stator.n_positions;
+  const bool sector = n_stator_copies < n_positions;  // build.cpp has checked that the sectors close up
   const Copies sc{&stator, n_stator_copies, 0};
   const Copies rc{&rotor, n_rotor_copies, n_stator_copies * static_cast<int>(stator.nodes.rows())};
   const int image_first = rc.first_id + n_rotor_copies * static_cast<int>(rotor.nodes.rows());
@@ -271,7 +271,7 @@ Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies,
   m.triangle_region.resize(n_tri);
   RegionTable table{m.regions, g.stator.kind, {}};
   const int n_rotor_features =
-      g.rotor.kind == RotorKind::surface_magnet ? g.rotor.magnets.n_poles : g.rotor.slots.count;
+      g.rotor.kind == RotorKind::surface_magnet ? g.rotor.magnets.n_poles : g.rotor.bars.count;
   int t = 0;
   for (const Copies* c : {&sc, &rc, &ic})
     for (int k = 0; k < c->n_copies; ++k)
@@ -283,7 +283,7 @@ Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies,
           for (int j = 0; j < 3; ++j) centre += m.nodes.row(m.triangles(t, j)).transpose() / 3.0;
           m.triangle_region(t) = table.rotor_index(kind, rotor_feature_number(g.rotor, centre), n_rotor_features);
         } else {
-          m.triangle_region(t) = table.index(kind, k + 1, n_slots, c == &rc);
+          m.triangle_region(t) = table.index(kind, k + 1, n_positions, c == &rc);
         }
       }
 
@@ -291,10 +291,10 @@ Mesh replicate(const Geometry& g, const SectorMesh& stator, int n_stator_copies,
   m.sliding.radius = g.mid_gap_radius();
   m.sliding.start_angle = stator.start_angle;
   if (sector) {
-    m.symmetry = {n_slots / n_stator_copies, anti_periodic, {}};
+    m.symmetry = {n_positions / n_stator_copies, anti_periodic, {}};
     pair_open_cuts(sc, sets, new_id, m.symmetry.cut_pairs);
     pair_open_cuts(rc, sets, new_id, m.symmetry.cut_pairs);
-    set_sector_sliding(m, sc, rc, sets, new_id, stator.start_angle, n_slots * (static_cast<int>(stator.sliding.size()) - 1));
+    set_sector_sliding(m, sc, rc, sets, new_id, stator.start_angle, n_positions * (static_cast<int>(stator.sliding.size()) - 1));
   } else {
     m.sliding.stator_nodes = sliding_nodes(sc, sets, new_id, stator.start_angle, angle_tolerance);
     m.sliding.rotor_nodes = sliding_nodes(rc, sets, new_id, stator.start_angle, angle_tolerance);

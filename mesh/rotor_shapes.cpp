@@ -19,7 +19,7 @@ constexpr double kTwoPi = 2 * std::numbers::pi;
 /// The number of repeating features round the rotor: poles, bars, or 0 for a smooth rotor.
 int feature_count(const RotorGeometry& r) {
   if (r.kind == RotorKind::surface_magnet) return r.magnets.n_poles;
-  if (r.kind == RotorKind::slotted) return r.slots.count;
+  if (r.kind == RotorKind::slotted) return r.bars.count;
   return 0;
 }
 
@@ -49,7 +49,7 @@ double clearance(const RotorGeometry& r, double a) {
   const double pitch = kTwoPi / n;
   const double off_centre = std::abs(std::remainder(a, pitch));  // from the nearest feature centre
   if (r.kind == RotorKind::surface_magnet) return std::abs(off_centre - 0.5 * r.magnets.arc);
-  const RotorSlots& s = r.slots;
+  const RotorBars& s = r.bars;
   const double half_angle = std::atan(0.5 * s.width / (r.outer_radius - s.bridge - s.depth));
   return std::max(0.0, off_centre - half_angle);
 }
@@ -61,7 +61,7 @@ int rotor_sector_count(const Geometry& g, int copies) {
   // run at 100k unknowns). The copies meet at the centre, so the apex angle 360°/n is kept at 10°
   // or more.
   constexpr int kMostRotorSectors = 36;
-  const int n = feature_count(g.rotor) > 0 ? feature_count(g.rotor) : g.stator.n_slots;
+  const int n = feature_count(g.rotor) > 0 ? feature_count(g.rotor) : g.stator.n_positions;
   if (n % copies != 0) return 0;
   for (int r = std::min(n, kMostRotorSectors); r > 1; --r)
     if (n % r == 0 && r % copies == 0) return r;
@@ -100,7 +100,7 @@ std::vector<Piece> build_magnet_rotor_pieces(const Geometry& g, double a0, doubl
 
 std::vector<Piece> build_slotted_rotor_pieces(const Geometry& g, double a0, double a1) {
   const RotorGeometry& r = g.rotor;
-  const RotorSlots& s = r.slots;
+  const RotorBars& s = r.bars;
   const double pitch = kTwoPi / s.count, top = r.outer_radius - s.bridge;
   std::vector<Piece> shapes;
   const auto [first, last] = features_near(a0, a1, pitch);

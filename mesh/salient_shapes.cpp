@@ -22,7 +22,7 @@ namespace occ = gmsh::model::occ;
 /// of the pole pitch then trim them, rather than arcs that merely coincide, and what lies outside
 /// is dropped with the fragment.
 int add_pole_iron(const StatorGeometry& s, const PoleOutline& o) {
-  const double a = std::numbers::pi / s.n_slots;
+  const double a = std::numbers::pi / s.n_positions;
   const double low = 0.5 * s.bore_radius;
   const int shoe = add_annular_sector(low, o.shoe_back_radius, -o.half_shoe_arc, o.half_shoe_arc);
   // The body starts inside the shoe: its inner corners sit halfway between the shoe back and the
@@ -49,7 +49,7 @@ int add_pole_iron(const StatorGeometry& s, const PoleOutline& o) {
 std::vector<Piece> build_salient_pieces(const Geometry& g) {
   const StatorGeometry& s = g.stator;
   const PoleOutline o = pole_outline(s);
-  const double a = std::numbers::pi / s.n_slots;
+  const double a = std::numbers::pi / s.n_positions;
   const double height = o.coil_top - o.coil_floor;
   const double width = o.coil_outer_y - o.body_half_width;
   const std::vector<Piece> shapes = {

@@ -183,7 +183,7 @@ SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n
                      : kind == StatorKind::slotless ? "stator belt pitch"
                                                     : "stator slot pitch";
   return with_context(what, [&] {
-    const double a = std::numbers::pi / g.stator.n_slots;
+    const double a = std::numbers::pi / g.stator.n_positions;
     // A = 0 on the outermost circle: the stator's outer surface, or the boundary beyond it.
     const double outer = std::max(g.stator.outer_radius, g.stator.boundary_radius);
     const SectorFrame f{-a, 2 * a, g.mid_gap_radius(), outer, 1e-6 * outer};
@@ -193,7 +193,7 @@ SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n
 
 SectorMesh mesh_exterior_image(const Geometry& g, int n_outer_segments, const SizeRule& size) {
   return with_context("exterior image", [&] {
-    const double a = std::numbers::pi / g.stator.n_slots, r = g.stator.boundary_radius;
+    const double a = std::numbers::pi / g.stator.n_positions, r = g.stator.boundary_radius;
     const SectorFrame f{-a, 2 * a, -1.0, r, 1e-6 * r};
     return mesh_pieces(build_image_pieces(g), f, 0, size, n_outer_segments);
   });

@@ -137,7 +137,7 @@ namespace {
 /// The slot pitch centred on slot 1: iron with the slot's pieces cut out, and the gap band.
 std::vector<Piece> build_slotted_pieces(const Geometry& g, const SlotLayers& layers) {
   const StatorGeometry& s = g.stator;
-  const double a = std::numbers::pi / s.n_slots;
+  const double a = std::numbers::pi / s.n_positions;
   const int stator = add_annular_sector(s.bore_radius, s.outer_radius, -a, a);
   // What is not slot is iron; the slot shapes' parts below the bore are dropped.
   const std::vector<Piece> pieces = fragment_domain(stator, slot_shapes(s, layers), {RegionKind::stator_iron, 0});
@@ -155,13 +155,13 @@ std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& laye
   if (s.boundary_radius <= s.outer_radius) return pieces;
   // A yoke that does not keep the field in (an air-cored or thin one) needs air round the stator
   // out to where A = 0 is a fair boundary.
-  const double a = std::numbers::pi / s.n_slots;
+  const double a = std::numbers::pi / s.n_positions;
   const int ring = add_annular_sector(s.outer_radius, s.boundary_radius, -a, a);
   return fragment_pieces(pieces, {ring, {RegionKind::outer_air, 0}});
 }
 
 std::vector<Piece> build_image_pieces(const Geometry& g) {
-  const double a = std::numbers::pi / g.stator.n_slots;
+  const double a = std::numbers::pi / g.stator.n_positions;
   return {{add_annular_sector(0.0, g.stator.boundary_radius, -a, a), {RegionKind::outer_air, 0}}};
 }
 

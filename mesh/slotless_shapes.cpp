@@ -25,7 +25,7 @@ std::vector<Piece> conductor_shapes(const StatorGeometry& s, const SlotLayers& l
 
 std::vector<Piece> build_slotless_pieces(const Geometry& g, const SlotLayers& layers) {
   const StatorGeometry& s = g.stator;
-  const double a = std::numbers::pi / s.n_slots;
+  const double a = std::numbers::pi / s.n_positions;
   // What of the winding annulus is not conductor is air, shared with the neighbouring pitches.
   const int annulus = add_annular_sector(s.bore_radius, s.belts.outer_radius, -a, a);
   std::vector<Piece> pieces = fragment_domain(annulus, conductor_shapes(s, layers), {RegionKind::slot_air, 0});

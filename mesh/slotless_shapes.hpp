@@ -8,7 +8,7 @@
 
 namespace tf::mesh::detail {
 
-/// The belt pitch centred on conductor sector 1 (on the +x axis), spanning ±pi/n_slots, from the
+/// The belt pitch centred on conductor sector 1 (on the +x axis), spanning ±pi/n_positions, from the
 /// sliding circle to the stator's outer radius: the gap band between the sliding circle and the
 /// bore (gap), the conductor sector between the bore and belts.outer_radius over ±belts.span/2
 /// (coil, layer 1; with two layers, layer 1 is the half nearest the gap, or the counter-clockwise

@@ -26,39 +26,39 @@ Carried flipped(Carried c) {
 }
 
 /// True when every slot layer s + shift carries what slot layer s does, times `sign`.
-bool repeats(const SlotTable& t, int n_slots, int shift, int sign) {
+bool repeats(const SlotTable& t, int n_positions, int shift, int sign) {
   SlotTable moved;
   for (const auto& [key, sides] : t)
-    moved[{(key.first - 1 + shift) % n_slots + 1, key.second}] = sign > 0 ? sides : flipped(sides);
+    moved[{(key.first - 1 + shift) % n_positions + 1, key.second}] = sign > 0 ? sides : flipped(sides);
   return moved == t;
 }
 
 /// Whether the rotor repeats over `slots` pitches, and with which sign: +1 periodic, -1 anti-periodic,
 /// 0 either (no rotor source), nothing when it does not repeat.
-std::optional<int> rotor_sign(const RotorGeometry& r, int n_slots, int slots) {
+std::optional<int> rotor_sign(const RotorGeometry& r, int n_positions, int slots) {
   if (r.kind == RotorKind::surface_magnet) {
-    if ((r.magnets.n_poles * slots) % n_slots != 0) return std::nullopt;
-    return (r.magnets.n_poles * slots / n_slots) % 2 == 0 ? 1 : -1;
+    if ((r.magnets.n_poles * slots) % n_positions != 0) return std::nullopt;
+    return (r.magnets.n_poles * slots / n_positions) % 2 == 0 ? 1 : -1;
   }
-  if (r.kind == RotorKind::slotted && (r.slots.count * slots) % n_slots != 0) return std::nullopt;
+  if (r.kind == RotorKind::slotted && (r.bars.count * slots) % n_positions != 0) return std::nullopt;
   return 0;
 }
 
 }  // namespace
 
 std::optional<SectorChoice> choose_sector(const Geometry& g, const Winding& w) {
-  const int n_slots = g.stator.n_slots;
-  if (w.n_slots != n_slots || n_slots < 2) return std::nullopt;
+  const int n_positions = g.stator.n_positions;
+  if (w.n_positions != n_positions || n_positions < 2) return std::nullopt;
   const SlotTable table = slot_table(w);
-  for (int slots = 1; slots < n_slots; ++slots) {
-    if (n_slots % slots != 0) continue;
-    const std::optional<int> rotor = rotor_sign(g.rotor, n_slots, slots);
+  for (int slots = 1; slots < n_positions; ++slots) {
+    if (n_positions % slots != 0) continue;
+    const std::optional<int> rotor = rotor_sign(g.rotor, n_positions, slots);
     if (!rotor) continue;
-    const int copies = n_slots / slots;
+    const int copies = n_positions / slots;
     for (int sign : {1, -1}) {
       if (*rotor != 0 && sign != *rotor) continue;
       if (sign < 0 && copies % 2 != 0) continue;  // the images must close up round the machine
-      if (repeats(table, n_slots, slots, sign)) return SectorChoice{slots, copies, sign < 0};
+      if (repeats(table, n_positions, slots, sign)) return SectorChoice{slots, copies, sign < 0};
     }
   }
   return std::nullopt;

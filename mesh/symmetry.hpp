@@ -17,7 +17,7 @@ struct SectorChoice {
   bool anti_periodic = false;  ///< the sources, hence the field, change sign from one sector to the next
 };
 
-/// The sector of fewest slot pitches S (a proper divisor of Q = g.stator.n_slots) for which
+/// The sector of fewest slot pitches S (a proper divisor of Q = g.stator.n_positions) for which
 /// - the winding repeats: the coil sides of slot s + S (mod Q) are those of slot s (same layer,
 ///   phase and turns) with the same direction (periodic) or every direction reversed (anti-periodic);
 /// - the rotor repeats: a smooth iron rotor or none always; surface magnets when 2*pi*S/Q is a whole

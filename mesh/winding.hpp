@@ -21,7 +21,7 @@ enum class LayoutRule {
 
 struct Winding {
   WindingSpec spec;
-  int n_slots = 0;  ///< slots Q, or poles P of a salient-pole stator
+  int n_positions = 0;  ///< winding positions round the bore: slots Q, salient poles P or conductor sectors
   LayoutRule rule = LayoutRule::phase_belts;
   std::vector<CoilSide> sides;
   /// Electrical angle [rad] of phase A's magnetic axis (where its B_r fundamental peaks, pointing
@@ -30,7 +30,7 @@ struct Winding {
 
   /// q = Q/(2pm); a fraction for fractional-slot windings.
   double slots_per_pole_per_phase() const {
-    return static_cast<double>(n_slots) / (spec.n_poles * spec.n_phases);
+    return static_cast<double>(n_positions) / (spec.n_poles * spec.n_phases);
   }
   /// Series turns of one phase: its conductors / 2 / parallel paths.
   double series_turns() const;

@@ -29,8 +29,8 @@ std::vector<WindingFactor> winding_factors(const Winding& w, int max_order) {
   const int p = w.spec.pole_pairs();
   const bool closed_form = w.rule == LayoutRule::phase_belts;
   const double q = w.slots_per_pole_per_phase();
-  const double alpha = 2 * kPi * p / w.n_slots;
-  const double pitch_ratio = w.spec.coil_pitch / (static_cast<double>(w.n_slots) / w.spec.n_poles);
+  const double alpha = 2 * kPi * p / w.n_positions;
+  const double pitch_ratio = w.spec.coil_pitch / (static_cast<double>(w.n_positions) / w.spec.n_poles);
   const double none = std::numeric_limits<double>::quiet_NaN();
   std::vector<WindingFactor> factors;
   for (int nu = 1; nu <= max_order; ++nu) {

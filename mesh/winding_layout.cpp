@@ -18,9 +18,9 @@ constexpr double kPi = std::numbers::pi;
 
 double phase_shift(int m) { return m % 2 ? 2 * kPi / m : kPi / m; }
 
-double slot_angle(int slot, int n_slots) { return 2 * kPi * (slot - 1) / n_slots; }
+double slot_angle(int slot, int n_positions) { return 2 * kPi * (slot - 1) / n_positions; }
 
-int wrap_slot(int slot, int n_slots) { return ((slot - 1) % n_slots + n_slots) % n_slots + 1; }
+int wrap_slot(int slot, int n_positions) { return ((slot - 1) % n_positions + n_positions) % n_positions + 1; }
 
 /// Belt i of 2m (each 180°/m electrical wide, counter-clockwise): its phase and direction.
 /// Odd m: +A, -C, +B, -A, +C, -B for m = 3; even m: +A, +B, -A, -B for m = 2.
@@ -98,32 +98,32 @@ std::vector<CoilSide> star_of_slots(const std::vector<Coil>& coils, int m, int p
   return best;
 }
 
-std::vector<CoilSide> phase_belts(const WindingSpec& spec, int n_slots) {
-  const int m = spec.n_phases, q = n_slots / (spec.n_poles * m);
+std::vector<CoilSide> phase_belts(const WindingSpec& spec, int n_positions) {
+  const int m = spec.n_phases, q = n_positions / (spec.n_poles * m);
   std::vector<CoilSide> sides;
-  for (int s = 1; s <= n_slots; ++s) {
+  for (int s = 1; s <= n_positions; ++s) {
     const auto [phase, direction] = belt_phase(((s - 1) / q) % (2 * m), m);
-    sides.push_back({s, 1, phase, direction, spec.turns_per_coil, slot_angle(s, n_slots)});
+    sides.push_back({s, 1, phase, direction, spec.turns_per_coil, slot_angle(s, n_positions)});
   }
   if (spec.n_layers == 2)
-    for (int s = 1; s <= n_slots; ++s) {
-      const CoilSide& go = sides[wrap_slot(s - spec.coil_pitch, n_slots) - 1];
-      sides.push_back({s, 2, go.phase, -go.direction, spec.turns_per_coil, slot_angle(s, n_slots)});
+    for (int s = 1; s <= n_positions; ++s) {
+      const CoilSide& go = sides[wrap_slot(s - spec.coil_pitch, n_positions) - 1];
+      sides.push_back({s, 2, go.phase, -go.direction, spec.turns_per_coil, slot_angle(s, n_positions)});
     }
   return sides;
 }
 
 /// Coils of a slotted stator for the star of slots: every slot starts a coil in a double layer;
 /// every other slot in a single layer (so each slot holds one side).
-std::vector<Coil> slot_coils(const WindingSpec& spec, int n_slots) {
+std::vector<Coil> slot_coils(const WindingSpec& spec, int n_positions) {
   std::vector<Coil> coils;
   const int step = spec.n_layers == 2 ? 1 : 2;
   const int back_layer = spec.n_layers == 2 ? 2 : 1;
-  for (int s = 1; s <= n_slots; s += step) {
-    const int r = wrap_slot(s + spec.coil_pitch, n_slots);
-    coils.push_back({{s, 1, 0, 1, spec.turns_per_coil, slot_angle(s, n_slots)},
-                     {r, back_layer, 0, -1, spec.turns_per_coil, slot_angle(r, n_slots)},
-                     spec.pole_pairs() * slot_angle(s, n_slots)});
+  for (int s = 1; s <= n_positions; s += step) {
+    const int r = wrap_slot(s + spec.coil_pitch, n_positions);
+    coils.push_back({{s, 1, 0, 1, spec.turns_per_coil, slot_angle(s, n_positions)},
+                     {r, back_layer, 0, -1, spec.turns_per_coil, slot_angle(r, n_positions)},
+                     spec.pole_pairs() * slot_angle(s, n_positions)});
   }
   return coils;
 }
@@ -134,8 +134,8 @@ std::vector<Coil> pole_coils(const WindingSpec& spec, const StatorGeometry& st) 
   const PoleOutline o = pole_outline(st);
   const double half = std::atan2(0.5 * (o.body_half_width + o.coil_outer_y), 0.5 * (o.coil_floor + o.coil_top));
   std::vector<Coil> coils;
-  for (int k = 1; k <= st.n_slots; ++k) {
-    const double centre = slot_angle(k, st.n_slots);
+  for (int k = 1; k <= st.n_positions; ++k) {
+    const double centre = slot_angle(k, st.n_positions);
     coils.push_back({{k, 1, 0, 1, spec.turns_per_coil, centre + half},
                      {k, 2, 0, -1, spec.turns_per_coil, centre - half},
                      spec.pole_pairs() * centre});
@@ -145,17 +145,17 @@ std::vector<Coil> pole_coils(const WindingSpec& spec, const StatorGeometry& st) 
 
 std::vector<CoilSide> table_sides(const WindingSpec& spec, const StatorGeometry& st) {
   std::vector<CoilSide> sides = spec.explicit_sides;
-  for (auto& s : sides) s.angle = slot_angle(s.slot, st.n_slots);
+  for (auto& s : sides) s.angle = slot_angle(s.slot, st.n_positions);
   return sides;
 }
 
 bool integral_slot(const WindingSpec& spec, const StatorGeometry& st) {
-  return st.kind != StatorKind::salient && st.n_slots % (spec.n_poles * spec.n_phases) == 0;
+  return st.kind != StatorKind::salient && st.n_positions % (spec.n_poles * spec.n_phases) == 0;
 }
 
 /// The layout by the rule that applies; sides are empty when the star finds no balanced layout.
 Winding by_rule(const WindingSpec& spec, const StatorGeometry& st) {
-  Winding w{spec, st.n_slots, LayoutRule::table, {}, 0.0};
+  Winding w{spec, st.n_positions, LayoutRule::table, {}, 0.0};
   if (!spec.explicit_sides.empty()) {
     w.sides = table_sides(spec, st);
   } else if (st.kind == StatorKind::salient) {
@@ -163,10 +163,10 @@ Winding by_rule(const WindingSpec& spec, const StatorGeometry& st) {
     w.sides = star_of_slots(pole_coils(spec, st), spec.n_phases, spec.pole_pairs());
   } else if (integral_slot(spec, st)) {
     w.rule = LayoutRule::phase_belts;
-    w.sides = phase_belts(spec, st.n_slots);
+    w.sides = phase_belts(spec, st.n_positions);
   } else {
     w.rule = LayoutRule::star_of_slots;
-    w.sides = star_of_slots(slot_coils(spec, st.n_slots), spec.n_phases, spec.pole_pairs());
+    w.sides = star_of_slots(slot_coils(spec, st.n_positions), spec.n_phases, spec.pole_pairs());
   }
   return w;
 }
@@ -180,10 +180,10 @@ double Winding::series_turns() const {
   return conductors / 2.0 / spec.parallel_paths;
 }
 
-int Winding::periodicity() const { return std::gcd(n_slots, spec.pole_pairs()); }
+int Winding::periodicity() const { return std::gcd(n_positions, spec.pole_pairs()); }
 
 std::optional<std::string> layout_problem(const WindingSpec& spec, const StatorGeometry& st) {
-  const int Q = st.n_slots;
+  const int Q = st.n_positions;
   if (spec.explicit_sides.empty() && st.kind == StatorKind::slotted) {
     if (spec.coil_pitch < 1 || spec.coil_pitch > Q / 2)
       return "a coil pitch from 1 to Q/2 = " + std::to_string(Q / 2) + " slots";

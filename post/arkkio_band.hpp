@@ -9,6 +9,7 @@
 
 #include "mesh/mesh.hpp"
 #include "solver/p1.hpp"
+#include "solver/materials.hpp"
 
 namespace tf::post::detail {
 
@@ -32,7 +33,7 @@ inline double stress_product(std::complex<double> br, std::complex<double> bt) {
 template <class Scalar>
 double arkkio_band_torque(const mesh::Mesh& m, const Eigen::Matrix<Scalar, Eigen::Dynamic, 1>& a,
                           double stack_length) {
-  constexpr double mu0 = 4e-7 * std::numbers::pi;
+  constexpr double mu0 = solver::kMu0;
   double sum = 0.0;
   for (int t = 0; t < m.n_triangles(); ++t) {
     if (m.regions[m.triangle_region(t)].kind != mesh::RegionKind::gap) continue;

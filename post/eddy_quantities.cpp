@@ -8,12 +8,13 @@
 #include "post/arkkio_band.hpp"
 #include "solver/flux_linkage.hpp"
 #include "solver/p1.hpp"
+#include "solver/materials.hpp"
 
 namespace tf::post {
 namespace {
 
 using Complex = std::complex<double>;
-constexpr double kMu0 = 4e-7 * std::numbers::pi;
+using solver::kMu0;
 
 struct Element {
   solver::TriangleXY xy;

@@ -41,7 +41,7 @@ std::string short_key(const std::string& key) { return key.substr(key.rfind('.')
 
 std::string metric_heading(const MetricColumn& m) { return m.unit.empty() ? m.label : m.label + " [" + m.unit + "]"; }
 
-/// Rows in report order: by rank, then the unranked in the study's order.
+/// Rows in report order: by rank, then the unranked in the sweep's order.
 std::vector<const SweepRow*> report_order(const SweepTable& t) {
   std::vector<const SweepRow*> rows;
   for (const auto& r : t.rows) rows.push_back(&r);
@@ -130,14 +130,14 @@ Page sweep_page(const SweepTable& t, const std::string& best_variant_note) {
   page.subtitle = "Sweep of " + std::to_string(t.rows.size()) + " variants, " + std::to_string(ok) + " ran";
   std::string varied;
   for (const auto& p : t.parameters) varied += (varied.empty() ? "" : ", ") + p;
-  Section study{"Study", {{"sweep file", t.sweep_file, ""}, {"base case", t.base_case, ""}, {"varied inputs", varied, ""},
+  Section sweep{"Sweep", {{"sweep file", t.sweep_file, ""}, {"base case", t.base_case, ""}, {"varied inputs", varied, ""},
                           {"variants", std::to_string(t.rows.size()), ""}, {"variants that ran", std::to_string(ok), ""}},
                 best_variant_note};
   if (t.rank_by >= 0 && t.rank_by < static_cast<int>(t.metrics.size())) {
     const MetricColumn& m = t.metrics[static_cast<std::size_t>(t.rank_by)];
-    study.rows.push_back({"ranked by", m.label + (m.lower_is_better ? ", lower is better" : ", higher is better"), m.unit});
+    sweep.rows.push_back({"ranked by", m.label + (m.lower_is_better ? ", lower is better" : ", higher is better"), m.unit});
   }
-  page.sections.push_back(std::move(study));
+  page.sections.push_back(std::move(sweep));
   page.tables.push_back(ranked_table(t));
   std::vector<std::string> round_off;
   for (std::size_t k = 0; k < t.metrics.size(); ++k) {

@@ -29,12 +29,12 @@ struct SweepRow {
 };
 
 struct SweepTable {
-  std::string title;                    ///< of the study
+  std::string title;                    ///< of the sweep file
   std::string sweep_file;               ///< as given on the command line
   std::string base_case;                ///< path of the base case
   std::vector<std::string> parameters;  ///< varied case keys, dotted ("stator.slot_opening")
   std::vector<MetricColumn> metrics;
-  std::vector<SweepRow> rows;           ///< in the study's order of variants
+  std::vector<SweepRow> rows;           ///< in the sweep file's order of variants
   int rank_by = -1;                     ///< index into metrics; -1 = no ranking
 };
 

@@ -3,6 +3,7 @@
 #include <numbers>
 
 #include "post/arkkio_band.hpp"
+#include "solver/materials.hpp"
 
 namespace tf::post {
 
@@ -11,7 +12,7 @@ double arkkio_torque_static(const mesh::Mesh& m, const Eigen::VectorXd& a_nodes,
 }
 
 double circle_torque(const GapOperators& g, const Eigen::VectorXd& a_nodes, double stack_length) {
-  constexpr double mu0 = 4e-7 * std::numbers::pi;
+  constexpr double mu0 = solver::kMu0;
   const Eigen::VectorXd br = g.br * a_nodes, bt = g.bt * a_nodes;
   const double integral = 2 * std::numbers::pi / static_cast<double>(br.size()) * br.dot(bt);
   return stack_length * g.radius * g.radius / mu0 * integral;

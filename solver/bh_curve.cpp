@@ -1,4 +1,5 @@
 #include "solver/bh_curve.hpp"
+#include "solver/materials.hpp"
 
 #include <algorithm>
 #include <cassert>
@@ -10,7 +11,6 @@
 namespace tf::solver {
 namespace {
 
-constexpr double kMu0 = 4e-7 * std::numbers::pi;
 
 std::string point(std::size_t i) { return "point " + std::to_string(i + 1) + ": "; }
 

@@ -1,11 +1,11 @@
 #include "solver/coefficients.hpp"
+#include "solver/materials.hpp"
 
 #include <numbers>
 
 namespace tf::solver {
 namespace {
 
-constexpr double kMu0 = 4e-7 * std::numbers::pi;
 using Kind = mesh::RegionKind;
 
 double relative_permeability(Kind k, const Materials& mat) {

@@ -3,7 +3,6 @@
 // analyses the pattern for the first and factorizes each. Internal to solver/.
 
 #include <cassert>
-#include <chrono>
 #include <complex>
 #include <string>
 
@@ -14,6 +13,7 @@
 #include "solver/dofs.hpp"
 #include "solver/time_harmonic.hpp"
 #include "solver/errors.hpp"
+#include "solver/stopwatch.hpp"
 
 namespace tf::solver {
 
@@ -26,27 +26,23 @@ class ComplexSequence {
 
   /// Solves system x = load (#dofs); the times of each part go into stats. Throws SolveError.
   Eigen::VectorXcd solve(const Matrix& system, const Eigen::VectorXcd& load, TimeHarmonicStats& stats) {
-    auto t = Clock::now();
+    Stopwatch clock;
     if (!analysed_) {
       lu_.analyzePattern(system);
       analysed_ = true;
-      stats.analyse_seconds += since(t);
-      t = Clock::now();
+      stats.analyse_seconds += clock.lap();
     }
     lu_.factorize(system);
-    stats.factorize_seconds += since(t);
+    stats.factorize_seconds += clock.lap();
     if (lu_.info() != Eigen::Success)
       throw SolveError(what_ + " could not be factorized (UMFPACK); usual causes: a region with no fixed potential, "
                                "or a zero permeability");
-    t = Clock::now();
     Eigen::VectorXcd x = lu_.solve(load);
-    stats.solve_seconds += since(t);
+    stats.solve_seconds += clock.lap();
     return x;
   }
 
  private:
-  using Clock = std::chrono::steady_clock;
-  static double since(Clock::time_point t) { return std::chrono::duration<double>(Clock::now() - t).count(); }
   std::string what_;
   Eigen::UmfPackLU<Matrix> lu_;
   bool analysed_ = false;

@@ -4,6 +4,7 @@
 #include <numbers>
 
 #include "solver/p1.hpp"
+#include "solver/materials.hpp"
 
 namespace tf::solver {
 
@@ -19,7 +20,7 @@ Eigen::Vector2d remanence(const MagnetLayout& layout, double b_r, int pole, cons
 }
 
 Eigen::VectorXd magnet_load(const mesh::Mesh& m, const DofMap& d, const Materials& mat, const MagnetLayout& layout) {
-  const double nu = 1.0 / (4e-7 * std::numbers::pi * mat.magnet_mu_rec);
+  const double nu = 1.0 / (kMu0 * mat.magnet_mu_rec);
   Eigen::VectorXd f = Eigen::VectorXd::Zero(d.n_dofs);
   for (int t = 0; t < m.n_triangles(); ++t) {
     const mesh::Region& region = m.regions[m.triangle_region(t)];

@@ -3,11 +3,15 @@
 // permeability of free space and, as source regions of given current, no eddy currents.
 // solver::region_coefficients (solver/coefficients.hpp) turns them into per-region coefficients.
 
+#include <numbers>
 #include <optional>
 #include <string>
 #include <vector>
 
 namespace tf::solver {
+
+/// Permeability of free space [H/m] (the classical SI value; the 2019 SI value differs by 1e-10).
+inline constexpr double kMu0 = 4e-7 * std::numbers::pi;
 
 /// A B-H curve as given: points (H [A/m], B [T]) of the solid steel, the stacking factor of the
 /// laminations (iron's share of the stack), and where the data come from.

@@ -1,7 +1,6 @@
 #include "solver/motion.hpp"
 
 #include <algorithm>
-#include <chrono>
 #include <cmath>
 #include <numbers>
 #include <sstream>
@@ -11,12 +10,11 @@
 #include "solver/dofs.hpp"
 #include "solver/errors.hpp"
 #include "solver/magnets.hpp"
+#include "solver/stopwatch.hpp"
 
 namespace tf::solver {
 namespace {
 
-using Clock = std::chrono::steady_clock;
-double since(Clock::time_point t) { return std::chrono::duration<double>(Clock::now() - t).count(); }
 
 /// Identity numbering: one "unknown" per node, to build loads once in node space.
 DofMap node_space(const mesh::Mesh& m) {
@@ -69,19 +67,19 @@ struct MotionSolver::Impl {
 
   void turn_to(int k) {
     if (k == shift) return;
-    const auto t = Clock::now();
+    const Stopwatch clock;
     dofs = number_dofs(m, k);
     solver.set_dofs(dofs);
-    stats.analyse_seconds += since(t);
+    stats.analyse_seconds += clock.seconds();
     shift = k;
   }
 };
 
 MotionSolver::MotionSolver(const mesh::Mesh& m, const mesh::Winding& w, const Materials& materials,
                            const MagnetLayout& layout, NewtonControls controls) {
-  const auto t = Clock::now();
+  const Stopwatch clock;
   impl_ = std::make_unique<Impl>(m, w, materials, layout, controls);
-  impl_->stats.analyse_seconds = since(t);  // the first analysis, with the ordering search
+  impl_->stats.analyse_seconds = clock.seconds();  // the first analysis, with the ordering search
 }
 MotionSolver::~MotionSolver() = default;
 
@@ -92,18 +90,18 @@ double MotionSolver::coenergy(int shift, const std::vector<double>& currents) {
   // solution's permeabilities frozen is already close enough: one factorization, no Newton.
   Impl& s = *impl_;
   s.turn_to(shift);
-  const auto t = Clock::now();
+  const Stopwatch clock;
   const Eigen::Map<const Eigen::VectorXd> i(currents.data(), static_cast<Eigen::Index>(currents.size()));
   const Eigen::VectorXd f = gather(s.dofs, s.unit_loads * i + s.magnet_source);
   const double w = s.solver.coenergy_stationary(f, s.solver.predict(f));
-  s.stats.solve_seconds += since(t);
+  s.stats.solve_seconds += clock.seconds();
   return w;
 }
 
 PositionField MotionSolver::solve(int shift, const std::vector<double>& currents, bool warm_start) {
   Impl& s = *impl_;
   s.turn_to(shift);
-  const auto t = Clock::now();
+  const Stopwatch clock;
   const Eigen::Map<const Eigen::VectorXd> i(currents.data(), static_cast<Eigen::Index>(currents.size()));
   const Eigen::VectorXd f = gather(s.dofs, s.unit_loads * i + s.magnet_source);
   // After a turn the old potentials do not fit the new connection across the gap (measured: a
@@ -114,7 +112,7 @@ PositionField MotionSolver::solve(int shift, const std::vector<double>& currents
   out.shift = shift;
   out.newton = s.solver.solve(f, a);
   out.relative_residual = f.norm() > 0.0 ? out.newton.residual / f.norm() : 0.0;
-  s.stats.solve_seconds += since(t);
+  s.stats.solve_seconds += clock.seconds();
   ++s.stats.n_solves;
   s.stats.n_iterations += out.newton.iterations;
   if (!out.newton.converged) {

@@ -31,7 +31,7 @@ Solved solve(Strategy s, const StudyInput& in) {
 std::string machine_line(const input::Case& c, const mesh::Winding& w) {
   const auto k = mesh::winding_factors(w, 1)[0];
   const auto kind = c.geometry.stator.kind;
-  return fmt::format("{} {}, {} poles, {} phases, q = {:.4g}, winding factor {:.4f}", c.geometry.stator.n_slots,
+  return fmt::format("{} {}, {} poles, {} phases, q = {:.4g}, winding factor {:.4f}", c.geometry.stator.n_positions,
                      kind == mesh::StatorKind::salient    ? "salient poles"
                      : kind == mesh::StatorKind::slotless ? "winding sectors"
                                                           : "slots",

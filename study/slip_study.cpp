@@ -17,7 +17,7 @@ bool all_zero(const std::vector<std::complex<double>>& currents) {
 }  // namespace
 
 solver::Cage cage_of(const input::Case& c) {
-  const mesh::RotorSlots& bars = c.geometry.rotor.slots;
+  const mesh::RotorBars& bars = c.geometry.rotor.bars;
   return {bars.count, c.winding.pole_pairs(), bars.width * bars.depth, c.materials.bar_sigma, c.stack_length};
 }
 

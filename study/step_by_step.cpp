@@ -175,7 +175,7 @@ Solved solve_step_by_step(const StudyInput& in) {
   r.speed = study_speed(c);
   const solver::MotionStats stats = solver.stats();
   post::derive_flux_quantities(r, {c.winding.pole_pairs(), plan.span, in.w.phase_a_axis, plan.rotor_d_axis});
-  post::summarise_torque(r, c.geometry.stator.n_slots, c.winding.n_poles, plan.span,
+  post::summarise_torque(r, c.geometry.stator.n_positions, c.winding.n_poles, plan.span,
                          input::rotor_turns(c.study.kind) && c.study.virtual_work, stats.n_solves, stats.n_iterations);
   out.seconds.emplace_back("solve", clock.lap());
 

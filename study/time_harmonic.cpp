@@ -13,11 +13,12 @@
 #include "solver/stopwatch.hpp"
 #include "study/slip_study.hpp"
 #include "study/solved.hpp"
+#include "solver/materials.hpp"
 
 namespace tf::study {
 namespace {
 
-constexpr double kMu0 = 4e-7 * std::numbers::pi;
+using solver::kMu0;
 
 /// Speed k's field files (indexed by speed number) and the report's cross-section.
 void add_fields(const StudyInput& in, Solved& out, const std::vector<double>& speeds,

@@ -100,7 +100,7 @@ post::SweepTable collect_table(const CollectOptions& o) {
     bool same = other.parameters == m.parameters && other.variants.size() == m.variants.size();
     for (std::size_t k = 0; same && k < m.variants.size(); ++k) same = other.variants[k].id == m.variants[k].id;
     if (!same)
-      throw input::InputError(fmt::format("{}: holds another study ({}) than {} ({}); collect the shards of one sweep",
+      throw input::InputError(fmt::format("{}: holds another sweep ({}) than {} ({}); collect the shards of one sweep",
                                    o.dirs[i].string(), other.sweep_file, o.dirs.front().string(), m.sweep_file));
   }
   post::SweepTable t{m.title, m.sweep_file, m.base_case, m.parameters, sweep_metric_columns(), {}, -1};

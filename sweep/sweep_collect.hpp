@@ -15,11 +15,11 @@ namespace tf::sweep {
 struct CollectOptions {
   std::vector<std::filesystem::path> dirs;  ///< folders holding sweep.json and variant folders
   std::filesystem::path out_dir;            ///< where the summary goes
-  std::string rank_by;                      ///< metric spec (sweep_metrics.hpp); empty = the study's, else fundamental_T
+  std::string rank_by;                      ///< metric spec (sweep_metrics.hpp); empty = the sweep file's, else fundamental_T
 };
 
-/// Builds the table of every variant of the study the folders share. Throws input::InputError when a
-/// folder is not a sweep's or holds another study.
+/// Builds the table of every variant of the sweep the folders share. Throws input::InputError when a
+/// folder is not a sweep's or holds another sweep.
 post::SweepTable collect_table(const CollectOptions& options);
 
 /// Writes the summary files and prints the ranked table and a summary line. Returns 0 when every

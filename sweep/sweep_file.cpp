@@ -128,14 +128,14 @@ VariedKey read_varied(const Document& doc, const toml::node& entry, std::size_t 
 }
 
 /// Every varied and fixed key must be a single value set in the base case.
-void check_against_base(const Document& study, const SweepFile& s) {
+void check_against_base(const Document& sweep_doc, const SweepFile& s) {
   const Document base = input::parse_document(s.base_case, s.base_text);
   const auto check = [&](const std::string& key, int line) {
     const toml::node* node = base.root.at_path(key).node();
-    if (!node) fail(study, line, key, fmt::format("not set in the base case {}", s.base_case),
+    if (!node) fail(sweep_doc, line, key, fmt::format("not set in the base case {}", s.base_case),
                     "a key the base case sets (set it there, so the sweep has a value to replace)");
     if (node->is_table() || node->is_array())
-      fail(study, line, key, "is a table or a list in the base case", "a key holding one number, string or true/false");
+      fail(sweep_doc, line, key, "is a table or a list in the base case", "a key holding one number, string or true/false");
   };
   for (const auto& v : s.varied) check(v.key, v.line);
   for (const auto& f : s.fixed) check(f.key, f.line);

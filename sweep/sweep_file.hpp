@@ -1,6 +1,6 @@
 #pragma once
 // A sweep file (TOML) names a base case and the case keys to vary, each as a list of values or a
-// range, combined as a full grid or zipped; cases/*_study.toml are examples:
+// range, combined as a full grid or zipped; cases/sweeps/*.toml are examples:
 //
 //   title = "Slot opening against coil pitch"
 //   base_case = "pump24_three_phase.toml"     # relative to the sweep file
@@ -49,7 +49,7 @@ struct SweepFile {
   std::string rank_by;    ///< a metric key, possibly with ":lowest"/":highest"; empty = default
 };
 
-/// The most variants a study may make; more is almost surely a typo in a range.
+/// The most variants a sweep file may make; more is almost surely a typo in a range.
 inline constexpr std::size_t kMaxVariants = 100000;
 
 /// Reads and checks a sweep file (and reads its base case's text). Throws input::InputError naming the

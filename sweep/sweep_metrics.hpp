@@ -18,7 +18,7 @@ std::vector<double> read_metrics(const std::string& summary_json);
 
 /// Sets t.rank_by and each ok row's rank from a spec "name", "name:lowest" or "name:highest"
 /// (name: a column key; without a direction, the column's own). Rows whose value is NaN are not
-/// ranked; ties keep the study's order. Throws input::InputError for an unknown name or direction.
+/// ranked; ties keep the sweep's order. Throws input::InputError for an unknown name or direction.
 void rank_rows(post::SweepTable& t, const std::string& spec);
 
 }  // namespace tf::sweep

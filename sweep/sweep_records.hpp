@@ -1,6 +1,6 @@
 #pragma once
 // What a sweep leaves on disk besides the variants' own results:
-//   <out>/sweep.json          the study's variants (ids, inputs, problems found up front); the
+//   <out>/sweep.json          the sweep's variants (ids, inputs, problems found up front); the
 //                             same for every shard, so `collect` can tell what is missing
 //   <out>/<id>/variant.json   written last when a variant ends: its status and message. Its
 //                             presence marks the variant done; a folder without it is redone.

@@ -1,6 +1,5 @@
 #include "sweep/sweep_run.hpp"
 
-#include <chrono>
 #include <fstream>
 #include <map>
 #include <thread>
@@ -13,14 +12,12 @@
 #include "sweep/sweep_collect.hpp"
 #include "sweep/sweep_records.hpp"
 #include "post/atomic_file.hpp"
+#include "solver/stopwatch.hpp"
 
 namespace tf::sweep {
 namespace {
 
 namespace fs = std::filesystem;
-using Clock = std::chrono::steady_clock;
-
-double seconds_since(Clock::time_point t) { return std::chrono::duration<double>(Clock::now() - t).count(); }
 
 std::string clock_text(double seconds) {
   const auto s = static_cast<long long>(seconds + 0.5);
@@ -70,7 +67,7 @@ void report_progress(std::ostream& progress, const Tally& t, std::size_t running
 
 struct Job {
   const Variant* variant;
-  Clock::time_point start;
+  solver::Stopwatch clock;  ///< started with the child
 };
 
 /// Runs the queued variants, `jobs` at a time, and records each as it ends.
@@ -84,7 +81,7 @@ void run_queue(const SweepFile& s, const std::vector<const Variant*>& queue, con
       const Variant* v = queue[next++];
       const fs::path dir = o.out_dir / v->id;
       const pid_t pid = start_child({{"run", (dir / "case.toml").string(), "--out", dir.string()}, dir / "log.txt", jobs > 1});
-      running[pid] = {v, Clock::now()};
+      running[pid] = {v, solver::Stopwatch{}};
       --tally.left;
     }
     const ChildEnd end = wait_for_child();
@@ -92,7 +89,7 @@ void run_queue(const SweepFile& s, const std::vector<const Variant*>& queue, con
     if (it == running.end()) continue;
     const Variant& v = *it->second.variant;
     const fs::path dir = o.out_dir / v.id;
-    VariantRecord r{v.id, "ok", "", seconds_since(it->second.start)};
+    VariantRecord r{v.id, "ok", "", it->second.clock.seconds()};
     running.erase(it);
     std::error_code ec;
     if (end.exit_status != 0 || !fs::exists(dir / "summary.json", ec)) {
@@ -137,13 +134,13 @@ int dry_run(const SweepFile& s, const std::vector<Variant>& variants, const std:
 
 }  // namespace
 
-int run_sweep(const std::string& study_path, const SweepOptions& o, std::ostream& out, std::ostream& progress) {
-  const SweepFile s = read_sweep_file(study_path);
+int run_sweep(const std::string& sweep_path, const SweepOptions& o, std::ostream& out, std::ostream& progress) {
+  const SweepFile s = read_sweep_file(sweep_path);
   const std::vector<Variant> variants = expand_variants(s);
   const std::vector<std::string> problems = validate(s, variants);
   if (o.dry_run) return dry_run(s, variants, problems, o, out);
 
-  const auto start = Clock::now();
+  const solver::Stopwatch clock;
   std::error_code ec;
   fs::create_directories(o.out_dir, ec);
   if (ec) throw post::OutputError(fmt::format("could not create {}: {}", o.out_dir.string(), ec.message()));
@@ -175,7 +172,7 @@ int run_sweep(const std::string& study_path, const SweepOptions& o, std::ostream
       << std::flush;
   run_queue(s, queue, o, jobs, tally, progress);
   out << fmt::format("ran {} variants in {:.1f} s wall time ({} ok, {} failed or invalid, {} done before)\n",
-                     tally.done + tally.failed, seconds_since(start), tally.done, tally.failed, tally.skipped);
+                     tally.done + tally.failed, clock.seconds(), tally.done, tally.failed, tally.skipped);
   if (o.shard.n > 1) {
     out << fmt::format("shard {}/{} finished; when every shard has, run: turnfield collect {}\n", o.shard.k, o.shard.n,
                        o.out_dir.string());

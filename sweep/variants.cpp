@@ -13,12 +13,6 @@
 namespace tf::sweep {
 namespace {
 
-// The case reader's typed TOML access, with its file:line messages.
-using input::Document;
-using input::Fields;
-using input::parse_document;
-using input::read_input_file;
-
 /// Where a key's value stands in the base case's text: line (0-based) and columns [begin, end).
 struct ValueSpot {
   std::size_t line = 0, begin = 0, end = 0;

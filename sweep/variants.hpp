@@ -1,5 +1,5 @@
 #pragma once
-// The variants of a study: every combination of the varied values (a grid, last key fastest) or
+// The variants of a sweep file: every combination of the varied values (a grid, last key fastest) or
 // the i-th values together (zip), each as the base case's text with its values put in place.
 
 #include <cstddef>
@@ -11,13 +11,13 @@
 namespace tf::sweep {
 
 struct Variant {
-  std::size_t index = 0;            ///< 0-based, in the study's order
+  std::size_t index = 0;            ///< 0-based, in the sweep file's order
   std::vector<std::string> inputs;  ///< one TOML literal per SweepFile::varied key
   std::string case_text;            ///< the base case with the fixed and varied values replaced
   std::string id;                   ///< folder name: "v" + 16 hex digits of a hash of case_text
 };
 
-/// All variants of a study, in order. Throws input::InputError if the base case is not valid TOML.
+/// All variants of a sweep file, in order. Throws input::InputError if the base case is not valid TOML.
 std::vector<Variant> expand_variants(const SweepFile& s);
 
 /// "v" + FNV-1a (64 bit) of the text in hex: the same on every machine and every run, and

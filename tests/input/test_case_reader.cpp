@@ -239,7 +239,7 @@ TEST_CASE("the three-phase pump case reads back with every number in SI units") 
   const auto& s = c.geometry.stator;
   CHECK(s.bore_radius == 0.050);
   CHECK(s.outer_radius == 0.085);
-  CHECK(s.n_slots == 24);
+  CHECK(s.n_positions == 24);
   CHECK(s.slot.shape == tf::mesh::SlotShape::semi_closed);
   CHECK(s.slot.width == 0.007);
   CHECK(s.slot.depth == 0.016);
@@ -267,7 +267,7 @@ TEST_CASE("the three-phase pump case reads back with every number in SI units") 
 
 TEST_CASE("the two-phase pump case winds the same stator with q = 3 and takes the default study") {
   const auto c = read_case(source_dir + "/cases/pump24_two_phase.toml");
-  CHECK(c.geometry.stator.n_slots == 24);
+  CHECK(c.geometry.stator.n_positions == 24);
   CHECK(c.geometry.stator.slot.width == 0.007);
   CHECK(c.winding.n_phases == 2);
   CHECK(c.winding.coil_pitch == 6);
@@ -308,7 +308,7 @@ TEST_CASE("the salient-pole case reads its poles in SI units, the pole count sta
   CHECK(s.kind == tf::mesh::StatorKind::salient);
   CHECK(s.bore_radius == 0.030);
   CHECK(s.outer_radius == 0.060);
-  CHECK(s.n_slots == 4);
+  CHECK(s.n_positions == 4);
   CHECK(s.poles.shoe_arc == doctest::Approx(std::numbers::pi / 3).epsilon(1e-15).scale(0));  // 60°
   CHECK(s.poles.shoe_height == 0.003);
   CHECK(s.poles.body_width == 0.014);
@@ -332,7 +332,7 @@ TEST_CASE("the TEAM 30a case reads its slotless stator, boundary, sleeve and con
   CHECK(s.outer_radius == 0.057);
   CHECK(s.boundary_radius == 0.1);
   CHECK(s.open_boundary);
-  CHECK(s.n_slots == 6);  // the conductor sectors are the winding's slots
+  CHECK(s.n_positions == 6);  // the conductor sectors are the winding's slots
   CHECK(s.belts.span == doctest::Approx(std::numbers::pi / 4).epsilon(1e-15).scale(0));  // 45°
   CHECK(s.belts.outer_radius == 0.052);
   CHECK(s.slot.width == 0.0);  // no slot is read for a slotless stator

@@ -21,7 +21,7 @@ tf::mesh::Geometry open_slot_stator() {
   tf::mesh::Geometry g;
   g.stator.bore_radius = 0.060;
   g.stator.outer_radius = 0.100;
-  g.stator.n_slots = 36;
+  g.stator.n_positions = 36;
   g.stator.slot = {.shape = tf::mesh::SlotShape::open, .width = 0.005, .depth = 0.018};
   g.rotor = {.kind = tf::mesh::RotorKind::iron, .outer_radius = 0.0595, .shaft_radius = 0.020};
   return g;
@@ -32,7 +32,7 @@ tf::mesh::Geometry semi_closed_stator() {
   tf::mesh::Geometry g = open_slot_stator();
   g.stator.bore_radius = 0.050;
   g.stator.outer_radius = 0.085;
-  g.stator.n_slots = 24;
+  g.stator.n_positions = 24;
   g.stator.slot = {.shape = tf::mesh::SlotShape::semi_closed,
                    .width = 0.007,
                    .depth = 0.016,
@@ -137,7 +137,7 @@ TEST_CASE("rotor, gap band and shaft must fit inside the bore") {
 
 tf::mesh::StatorGeometry slots(int n) {
   tf::mesh::StatorGeometry s;
-  s.n_slots = n;
+  s.n_positions = n;
   return s;
 }
 

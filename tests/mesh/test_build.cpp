@@ -11,7 +11,7 @@ using namespace tf;
 namespace {
 
 void check_mesh(const mesh::Geometry& g, int n_layers, const mesh::Mesh& m) {
-  const int Q = g.stator.n_slots;
+  const int Q = g.stator.n_positions;
   const auto area = mesh::region_areas(m);
   testing::check_fills_disc(g, m);
   // Every slot has each layer, all with the same area: the copies are identical.
@@ -42,7 +42,7 @@ TEST_CASE("open-slot stator, two layers: regions, identical slots, sliding circl
   testing::check_sliding_circle(g, m);
   testing::check_gap_layers(g, m);
   testing::check_merged(m);
-  CHECK(m.outer_nodes.size() > static_cast<std::size_t>(g.stator.n_slots));
+  CHECK(m.outer_nodes.size() > static_cast<std::size_t>(g.stator.n_positions));
   for (int node : m.outer_nodes) CHECK(m.nodes.row(node).norm() == doctest::Approx(g.stator.outer_radius).epsilon(1e-9).scale(0));
 }
 

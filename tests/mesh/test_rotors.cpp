@@ -115,16 +115,16 @@ TEST_CASE("two-pole magnet rotor: two sectors of half a turn, a node count divis
 TEST_CASE("slotted rotor: bars of area width * depth, open and closed slots") {
   mesh::Geometry g = testing::open_slot_stator();
   g.rotor.kind = mesh::RotorKind::slotted;
-  g.rotor.slots = {.count = 28, .width = 0.004, .depth = 0.010, .bridge = 0.0006, .opening_width = 0.0015};
+  g.rotor.bars = {.count = 28, .width = 0.004, .depth = 0.010, .bridge = 0.0006, .opening_width = 0.0015};
   for (const double opening : {0.0015, 0.0}) {
-    g.rotor.slots.opening_width = opening;
+    g.rotor.bars.opening_width = opening;
     CAPTURE(opening);
     const mesh::Mesh m = mesh::build(g, {2}, {.fineness = 0.5, .sliding_multiple = 3});
     check_sliding(g, m, 28, 3);
     check_numbering(m, mesh::RegionKind::rotor_bar, 28);
     // The bar is a rectangle, drawn exactly by straight edges: its area only carries rounding.
     const auto area = mesh::region_areas(m);
-    const mesh::RotorSlots& s = g.rotor.slots;
+    const mesh::RotorBars& s = g.rotor.bars;
     for (int k = 1; k <= 28; ++k)
       CHECK(area[mesh::find_region(m, mesh::RegionKind::rotor_bar, k)] ==
             doctest::Approx(s.width * s.depth).epsilon(1e-9).scale(0));
@@ -139,8 +139,8 @@ TEST_CASE("slotted rotor: bars of area width * depth, open and closed slots") {
     const double r = g.rotor.outer_radius, w = opening;
     const double segment = w * (r - std::sqrt(r * r - 0.25 * w * w)) / 3.0;
     REQUIRE(air >= 0);
-    MESSAGE("openings area / expected - 1 = " << area[air] / (28 * (w * g.rotor.slots.bridge - segment)) - 1);
-    CHECK(area[air] == doctest::Approx(28 * (w * g.rotor.slots.bridge - segment)).epsilon(1e-3).scale(0));
+    MESSAGE("openings area / expected - 1 = " << area[air] / (28 * (w * g.rotor.bars.bridge - segment)) - 1);
+    CHECK(area[air] == doctest::Approx(28 * (w * g.rotor.bars.bridge - segment)).epsilon(1e-3).scale(0));
   }
 }
 

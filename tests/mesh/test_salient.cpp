@@ -137,7 +137,7 @@ TEST_CASE("the pole face spans the shoe arc, the air between the shoes reaches t
 
 TEST_CASE("two salient poles: sectors of half a turn mesh and join") {
   auto g = testing::salient_stator();
-  g.stator.n_slots = 2;
+  g.stator.n_positions = 2;
   g.stator.poles.shoe_arc = 2 * kPi / 3;
   const mesh::Mesh m = mesh::build(g, {2, true}, {0.5});
   check_coil_sides(m, 2);

@@ -48,7 +48,7 @@ TEST_CASE("choose_sector: integral-slot and tooth-coil windings on a smooth roto
   // 12 slots, 2p = 10 tooth coils, double layer: 150° per slot, 6 slots = 900° = 2.5 periods, so
   // the sign flips; t = gcd(12, 5) = 1, so nothing shorter repeats.
   mesh::Geometry g12 = testing::semi_closed_stator();
-  g12.stator.n_slots = 12;
+  g12.stator.n_positions = 12;
   s = chosen(g12, testing::winding_spec(3, 10, 2, 1, 1));
   CHECK(s.slots == 6);
   CHECK(s.anti_periodic);
@@ -73,16 +73,16 @@ TEST_CASE("choose_sector: the rotor must repeat, and magnets with the winding's 
   CHECK_FALSE(s.anti_periodic);
   // Bars carry no current here, so geometry alone counts: 28 bars repeat every 7 bars = 6 slots.
   g.rotor.kind = mesh::RotorKind::slotted;
-  g.rotor.slots = {.count = 28, .width = 0.003, .depth = 0.008, .bridge = 0.0005, .opening_width = 0.0};
+  g.rotor.bars = {.count = 28, .width = 0.003, .depth = 0.008, .bridge = 0.0005, .opening_width = 0.0};
   s = chosen(g, spec);
   CHECK(s.slots == 6);
   // 26 bars: 26 S / 24 is whole first at S = 12.
-  g.rotor.slots.count = 26;
+  g.rotor.bars.count = 26;
   s = chosen(g, spec);
   CHECK(s.slots == 12);
   CHECK_FALSE(s.anti_periodic);
   // 25 bars (coprime to 24): only the full model.
-  g.rotor.slots.count = 25;
+  g.rotor.bars.count = 25;
   CHECK_FALSE(mesh::choose_sector(g, mesh::lay_out(spec, g.stator)).has_value());
 }
 

@@ -31,7 +31,7 @@ mesh::Geometry team30a(double boundary) {
   g.stator.kind = mesh::StatorKind::slotless;
   g.stator.bore_radius = 0.032;
   g.stator.outer_radius = 0.057;
-  g.stator.n_slots = 6;
+  g.stator.n_positions = 6;
   g.stator.belts = {.outer_radius = 0.052, .span = kPi / 4};
   g.stator.boundary_radius = boundary;
   g.rotor.outer_radius = 0.030;
@@ -209,7 +209,7 @@ TEST_CASE("two layers in a conductor sector: radial halves, or side by side for 
 TEST_CASE("a sleeve on an iron rotor with a shaft; two conductor sectors of half a turn each") {
   mesh::Geometry g = team30a(0.2);
   g.rotor.shaft_radius = 0.008;
-  g.stator.n_slots = 2;
+  g.stator.n_positions = 2;
   g.stator.belts.span = 2 * kPi / 3;
   const mesh::Mesh m = mesh::build(g, {1}, {1.0});
   check_common(g, m);

@@ -22,7 +22,7 @@ mesh::Winding wind(int slots, int poles, int phases, int layers, int pitch) {
   s.coil_pitch = pitch;
   s.turns_per_coil = 7;
   mesh::StatorGeometry stator;
-  stator.n_slots = slots;
+  stator.n_positions = slots;
   return mesh::lay_out(s, stator);
 }
 
@@ -85,7 +85,7 @@ TEST_CASE("every slot-layer is used once and the phases are balanced, with axes 
       sides[s.phase] += 1;
       net[s.phase] += s.direction;
     }
-    CHECK(used.size() == static_cast<std::size_t>(2 * w.n_slots));
+    CHECK(used.size() == static_cast<std::size_t>(2 * w.n_positions));
     for (int k = 0; k < phases; ++k) {
       CHECK(sides[k] == sides[0]);
       CHECK(net[k] == 0);  // as many go as return sides
@@ -96,7 +96,7 @@ TEST_CASE("every slot-layer is used once and the phases are balanced, with axes 
     auto axis = [&](int phase) {
       std::complex<double> sum = 0.0;
       for (const auto& s : w.sides)
-        if (s.phase == phase) sum += double(s.direction) * std::polar(1.0, p * 2 * std::numbers::pi * (s.slot - 1) / w.n_slots);
+        if (s.phase == phase) sum += double(s.direction) * std::polar(1.0, p * 2 * std::numbers::pi * (s.slot - 1) / w.n_positions);
       return std::arg(sum) - std::numbers::pi / 2;  // current density peak leads the B_r axis by 90°
     };
     for (int k = 1; k < phases; ++k)
@@ -179,7 +179,7 @@ TEST_CASE("resultant space orders: 6k -+ 1 for three-phase, all odd orders for t
 
 TEST_CASE("a slot table is taken as given, and an unbalanced one is refused") {
   mesh::StatorGeometry stator;
-  stator.n_slots = 4;
+  stator.n_positions = 4;
   mesh::WindingSpec spec;
   spec.n_phases = 2;
   spec.n_poles = 2;

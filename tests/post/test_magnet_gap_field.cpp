@@ -74,7 +74,7 @@ TEST_CASE("slotless surface-magnet machine, open circuit: the gap field's fundam
   g.stator.kind = mesh::StatorKind::slotless;
   g.stator.bore_radius = 0.041;
   g.stator.outer_radius = 0.060;
-  g.stator.n_slots = 12;
+  g.stator.n_positions = 12;
   g.stator.belts = {.outer_radius = 0.043, .span = 0.8 * 2 * kPi / 12};
   g.rotor.kind = mesh::RotorKind::surface_magnet;
   g.rotor.outer_radius = 0.040;

@@ -88,7 +88,7 @@ TEST_CASE("fundamental against the magnetic-circuit estimate with Carter's coeff
   const mesh::Geometry g = testing::semi_closed_stator();
   const auto s = run(g, 3, 2, 6, 1e5, 1.0);
   const double gap = g.gap_length(), b0 = g.stator.slot.opening_width;
-  const double tau = 2 * kPi * g.stator.bore_radius / g.stator.n_slots;
+  const double tau = 2 * kPi * g.stator.bore_radius / g.stator.n_positions;
   const double u = b0 / (2 * gap);
   const double gamma = 4 / kPi * (u * std::atan(u) - std::log(std::sqrt(1 + u * u)));
   const double carter = tau / (tau - gamma * gap);

@@ -45,7 +45,7 @@ TEST_CASE("a full-pitch coil in a very permeable core: the gap field's harmonics
   // of F onto order n, near 1 % of the mean; the narrow gap keeps the curvature correction of the
   // layered solution below 0.03 % up to the 13th.
   mesh::Geometry g = testing::semi_closed_stator();
-  g.stator.n_slots = 36;
+  g.stator.n_positions = 36;
   g.stator.slot.width = 0.004;
   g.stator.slot.opening_width = 0.0003;
   g.rotor.outer_radius = g.stator.bore_radius - 0.0003;

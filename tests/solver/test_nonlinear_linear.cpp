@@ -32,7 +32,7 @@ mesh::Winding two_phase_winding() {
   mesh::Winding w;
   w.spec.n_phases = 2;
   w.spec.parallel_paths = 1;
-  w.n_slots = 1;
+  w.n_positions = 1;
   w.sides = {{1, 1, 0, 1, 20, 0.0}, {1, 2, 1, -1, 30, 0.0}};
   return w;
 }

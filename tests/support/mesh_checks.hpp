@@ -21,7 +21,7 @@ inline void check_sliding_circle(const mesh::Geometry& g, const mesh::Mesh& m) {
   const auto& s = m.sliding;
   REQUIRE(s.stator_nodes.size() == s.rotor_nodes.size());
   const int n = static_cast<int>(s.stator_nodes.size());
-  CHECK(n % g.stator.n_slots == 0);
+  CHECK(n % g.stator.n_positions == 0);
   std::set<int> distinct(s.stator_nodes.begin(), s.stator_nodes.end());
   distinct.insert(s.rotor_nodes.begin(), s.rotor_nodes.end());
   CHECK(distinct.size() == static_cast<std::size_t>(2 * n));  // two sides, no shared node

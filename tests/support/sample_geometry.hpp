@@ -12,7 +12,7 @@ inline mesh::Geometry open_slot_stator() {
   mesh::Geometry g;
   g.stator.bore_radius = 0.060;
   g.stator.outer_radius = 0.100;
-  g.stator.n_slots = 36;
+  g.stator.n_positions = 36;
   g.stator.slot = {mesh::SlotShape::open, 0.005, 0.018, 0.0, 0.0, 0.0};
   g.rotor.outer_radius = 0.0595;
   g.rotor.shaft_radius = 0.020;
@@ -24,7 +24,7 @@ inline mesh::Geometry semi_closed_stator() {
   mesh::Geometry g;
   g.stator.bore_radius = 0.050;
   g.stator.outer_radius = 0.085;
-  g.stator.n_slots = 24;
+  g.stator.n_positions = 24;
   g.stator.slot = {mesh::SlotShape::semi_closed, 0.007, 0.016, 0.0025, 0.0008, 0.0007};
   g.rotor.outer_radius = 0.0496;
   g.rotor.shaft_radius = 0.016;
@@ -39,7 +39,7 @@ inline mesh::Geometry salient_stator() {
   g.stator.kind = mesh::StatorKind::salient;
   g.stator.bore_radius = 0.030;
   g.stator.outer_radius = 0.060;
-  g.stator.n_slots = 4;
+  g.stator.n_positions = 4;
   g.stator.poles = {.shoe_arc = std::numbers::pi / 3,
                     .shoe_height = 0.003,
                     .body_width = 0.014,

@@ -30,7 +30,7 @@ inline Team30aModel team30a_model() {
   s.outer_radius = 0.057;
   s.boundary_radius = 0.1;
   s.open_boundary = true;
-  s.n_slots = 6;  // conductor sectors centred at 0, 60, ..., 300 degrees
+  s.n_positions = 6;  // conductor sectors centred at 0, 60, ..., 300 degrees
   s.belts.span = 45.0 * std::numbers::pi / 180.0;
   s.belts.outer_radius = 0.052;
   c.geometry.rotor.kind = mesh::RotorKind::iron;
