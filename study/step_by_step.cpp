@@ -158,6 +158,46 @@ std::vector<int> kept_steps(std::vector<int> file_steps, int report_step) {
   return file_steps;
 }
 
+/// The nodal fields kept while solving, by step.
+struct KeptFields {
+  const std::vector<int>& steps;
+  const std::vector<Eigen::VectorXd>& fields;
+  const Eigen::VectorXd& of(int k) const {
+    return fields[static_cast<std::size_t>(std::find(steps.begin(), steps.end(), k) - steps.begin())];
+  }
+};
+
+/// The iron loss per region into r and its files into out (a Steinmetz-type law over the period).
+void add_iron_loss(const StudyInput& in, const post::FluxHistory& history, post::MotionResult& r, Solved& out) {
+  const post::IronLoss loss =
+      post::iron_loss(in.m, history, solver::region_coefficients(in.m, in.c.materials).iron_loss, in.c.stack_length);
+  for (std::size_t i = 0; i < in.m.regions.size(); ++i)
+    if (loss.region_loss[i] > 0.0) r.iron_loss.push_back({in.m.regions[i].name, loss.region_loss[i]});
+  out.write_extra = [&m = in.m, loss](const std::filesystem::path& dir) {
+    post::write_iron_loss(dir, m, loss);
+    return std::vector<std::string>{"iron_loss.csv", "iron_loss.vtu"};
+  };
+}
+
+/// The field files of `files` and the report's cross-section, each drawn with its rotor where it stood.
+void add_fields(const StudyInput& in, const MotionSchedule& plan, const post::MotionResult& r, const KeptFields& kept,
+                const std::vector<int>& files, Solved& out) {
+  for (int k : files)
+    out.frames.push_back({k, step_time(in.c, plan, k), [&m = in.m, a = kept.of(k), angle = r.steps[k].rotor_angle](
+                                                           const std::filesystem::path& path) {
+                            post::write_position_field(path, m, a, angle);
+                          }});
+  const int shown = in.options.report_step;
+  const double angle = r.steps[shown].rotor_angle;
+  constexpr double deg = 180.0 / std::numbers::pi;
+  out.drawn = std::make_shared<const mesh::Mesh>(mesh::with_rotor_turned(in.m, post::drawn_rotor_angle(in.m, angle)));
+  // |B| does not depend on the sign the image of an anti-periodic sector carries.
+  out.section = {out.drawn.get(), post::flux_density_magnitude(in.m, kept.of(shown)),
+                 input::rotor_turns(in.c.study.kind)
+                     ? fmt::format("step {} (rotor at {:.4g}° mech.)", shown, angle * deg)
+                     : fmt::format("step {} (ωt = {:.4g}° el.)", shown, plan.electrical_angle[shown] * deg)};
+}
+
 }  // namespace
 
 Solved solve_step_by_step(const StudyInput& in) {
@@ -179,32 +219,9 @@ Solved solve_step_by_step(const StudyInput& in) {
                          input::rotor_turns(c.study.kind) && c.study.virtual_work, stats.n_solves, stats.n_iterations);
   out.seconds.emplace_back("solve", clock.lap());
 
-  std::optional<post::IronLoss> loss;
-  if (history) {
-    loss = post::iron_loss(in.m, *history, solver::region_coefficients(in.m, c.materials).iron_loss, c.stack_length);
-    for (std::size_t i = 0; i < in.m.regions.size(); ++i)
-      if (loss->region_loss[i] > 0.0) r.iron_loss.push_back({in.m.regions[i].name, loss->region_loss[i]});
-    out.write_extra = [&m = in.m, loss = *loss](const std::filesystem::path& dir) {
-      post::write_iron_loss(dir, m, loss);
-      return std::vector<std::string>{"iron_loss.csv", "iron_loss.vtu"};
-    };
-  }
+  if (history) add_iron_loss(in, *history, r, out);
   out.seconds.emplace_back("post", clock.lap());
-
-  const auto field_of = [&](int k) { return fields[std::find(kept.begin(), kept.end(), k) - kept.begin()]; };
-  for (int k : files)
-    out.frames.push_back({k, step_time(c, plan, k), [&m = in.m, a = field_of(k), angle = r.steps[k].rotor_angle](
-                                                        const std::filesystem::path& path) {
-                            post::write_position_field(path, m, a, angle);
-                          }});
-  const int shown = in.options.report_step;
-  const double angle = r.steps[shown].rotor_angle;
-  // |B| does not depend on the sign the image of an anti-periodic sector carries.
-  out.drawn = std::make_shared<const mesh::Mesh>(mesh::with_rotor_turned(in.m, post::drawn_rotor_angle(in.m, angle)));
-  out.section = {out.drawn.get(), post::flux_density_magnitude(in.m, field_of(shown)),
-                 input::rotor_turns(c.study.kind)
-                     ? fmt::format("step {} (rotor at {:.4g}° mech.)", shown, angle * 180 / std::numbers::pi)
-                     : fmt::format("step {} (ωt = {:.4g}° el.)", shown, plan.electrical_angle[shown] * 180 / std::numbers::pi)};
+  add_fields(in, plan, r, {kept, fields}, files, out);
 
   out.rotor_turns = input::rotor_turns(c.study.kind);
   // The stator field turns when the currents advance over the steps: phase angles and synchronous.
