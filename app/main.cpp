@@ -3,6 +3,8 @@
 // solving or writing.
 
 #include <algorithm>
+#include <cmath>
+#include <cstdlib>
 #include <filesystem>
 #include <iostream>
 #include <sstream>
@@ -38,6 +40,16 @@ tf::sweep::Shard parse_shard(const std::string& text) {
     throw tf::input::InputError("--shard " + text + ": expected k/N with 1 <= k <= N, e.g. --shard 2/8");
   return s;
 }
+
+/// Refuses NaN and infinity, which CLI11's range checks let through (every comparison with NaN is false).
+const CLI::Validator kFinite(
+    [](std::string& text) {
+      char* end = nullptr;
+      const double v = std::strtod(text.c_str(), &end);
+      return end != text.c_str() && *end == '\0' && std::isfinite(v) ? std::string()
+                                                                       : "expected a finite number, found " + text;
+    },
+    "FINITE");
 
 /// Runs `action`, whose int result is the exit status; exceptions become messages and 2 or 1.
 template <class Action>
@@ -83,7 +95,7 @@ int main(int argc, char** argv) {
   auto* mesh = cli.add_subcommand("mesh", "mesh the cross-section and write mesh.vtu with region ids");
   mesh->add_option("CASE", case_path, "case file (TOML)")->required();
   mesh->add_option("--out", out_dir, "output folder (default results/<case name>/mesh)");
-  mesh->add_option("--fineness", fineness, "override the case's mesh fineness")->check(CLI::Range(0.1, 20.0));
+  mesh->add_option("--fineness", fineness, "override the case's mesh fineness")->check(kFinite & CLI::Range(0.1, 20.0));
   mesh->add_option("--steps", steps, "override the number of steps, as for run (a rotor-motion study's steps set "
                                      "the sliding circle's nodes)")
       ->check(CLI::Range(2, 100000));
@@ -93,7 +105,7 @@ int main(int argc, char** argv) {
   run->add_flag("--all-steps", all_steps, "write a field file for every step");
   run->add_option("--field-files", field_files, "override the number of steps written as VTU files (0: none)")
       ->check(CLI::Range(0, 1000000));
-  run->add_option("--fineness", fineness, "override the case's mesh fineness")->check(CLI::Range(0.1, 20.0));
+  run->add_option("--fineness", fineness, "override the case's mesh fineness")->check(kFinite & CLI::Range(0.1, 20.0));
   run->add_option("--steps", steps, "override the number of steps of a phase-angle or rotor-motion study")
       ->check(CLI::Range(2, 100000));
   run->add_option("--report-step", report_step,
@@ -102,7 +114,7 @@ int main(int argc, char** argv) {
   auto* compare = cli.add_subcommand("compare", "run several cases and tabulate their field metrics side by side");
   compare->add_option("CASES", case_paths, "case files (TOML)")->required()->expected(2, 1000);
   compare->add_option("--out", out_dir, "output folder (default results/comparison)");
-  compare->add_option("--fineness", fineness, "override every case's mesh fineness")->check(CLI::Range(0.1, 20.0));
+  compare->add_option("--fineness", fineness, "override every case's mesh fineness")->check(kFinite & CLI::Range(0.1, 20.0));
   compare->add_option("--field-files", field_files, "override the number of VTU files per case (0: none)")
       ->check(CLI::Range(0, 1000000));
   compare->add_option("--steps", steps, "override every case's number of steps")->check(CLI::Range(2, 100000));

@@ -4,7 +4,7 @@ find_package(tomlplusplus REQUIRED)
 find_package(CLI11 REQUIRED)
 find_package(fmt REQUIRED)
 find_package(nlohmann_json 3.10 REQUIRED)
-find_package(VTK 9.1 REQUIRED COMPONENTS CommonCore CommonDataModel IOXML)
+find_package(VTK 9.1 REQUIRED COMPONENTS CommonCore CommonDataModel CommonMisc IOXML)
 
 # Gmsh 4.8 ships neither a CMake config nor a pkg-config file.
 find_path(GMSH_INCLUDE_DIR gmsh.h REQUIRED)

@@ -1,9 +1,8 @@
 #include "input/case_validation.hpp"
 
-#include "mesh/winding.hpp"
-
 #include <algorithm>
 #include <cmath>
+#include <complex>
 #include <numbers>
 #include <numeric>
 #include <vector>
@@ -11,6 +10,7 @@
 #include <fmt/format.h>
 
 #include "mesh/salient_outline.hpp"
+#include "mesh/winding.hpp"
 
 namespace tf::input {
 namespace {
@@ -443,10 +443,61 @@ std::optional<Problem> motion_problem(const Case& c) {
   return std::nullopt;
 }
 
+/// The largest |value| of a list of currents [A] (0 for none).
+template <class Values>
+double largest(const Values& values) {
+  double m = 0.0;
+  for (const auto& v : values) m = std::max(m, static_cast<double>(std::abs(v)));
+  return m;
+}
+
+std::optional<Problem> supply_problem(const Case& c) {
+  // A cogging study runs without current; every other study needs some, or it would report a
+  // "perfect" rotating field of 0 T and a torque of zero.
+  if (c.study.kind == input::StudyKind::cogging) return std::nullopt;
+  const solver::Supply& s = c.supply;
+  const char* expected = "a current above 0 A in some phase (a study without current is kind = \"cogging\")";
+  double states = 0.0;
+  for (const auto& state : s.states) states = std::max(states, largest(state));
+  switch (s.kind) {
+    case solver::SupplyKind::balanced:
+      if (s.peak_current == 0.0) return Problem{"supply.peak_current", "no current", expected};
+      break;
+    case solver::SupplyKind::phasors:
+      if (largest(s.phasors) == 0.0) return Problem{"supply.peak_currents", "no current in any phase", expected};
+      break;
+    case solver::SupplyKind::stepped_dc:
+      if (states == 0.0) return Problem{"supply.states", "no current in any state", expected};
+      break;
+    case solver::SupplyKind::split_phase:
+      if (s.split.voltage_rms == 0.0) return Problem{"supply.voltage_rms", "no voltage", "a voltage above 0 V"};
+      break;
+  }
+  return std::nullopt;
+}
+
+std::optional<Problem> conductor_problem(const Case& c) {
+  // An eddy-current study in which nothing conducts has no eddy currents: its "torque" and "rotor
+  // loss" would be round-off. The motion term sees conducting iron, shaft and sleeve (the stator's
+  // too); the slip method the rotor's conductors with the bars (checked in motion_problem).
+  if (c.study.kind != input::StudyKind::eddy_currents || c.geometry.rotor.kind == mesh::RotorKind::slotted)
+    return std::nullopt;
+  const auto& r = c.geometry.rotor;
+  const auto& m = c.materials;
+  const bool iron = r.kind != mesh::RotorKind::none;
+  const bool conducts = m.stator_iron_sigma > 0.0 || (iron && m.rotor_iron_sigma > 0.0) ||
+                        (r.shaft_radius > 0.0 && m.shaft_sigma > 0.0) || (r.sleeve_thickness > 0.0 && m.sleeve_sigma > 0.0);
+  if (conducts) return std::nullopt;
+  return Problem{"study.kind", "an eddy-current study in which nothing conducts (every part present has 0 S/m)",
+                 "a conductivity above 0 S/m for the rotor iron, shaft, sleeve or stator iron"};
+}
+
 std::optional<Problem> case_problem(const Case& c) {
   if (auto p = geometry_problem(c.geometry)) return p;
   if (auto p = winding_problem(c.winding, c.geometry.stator)) return p;
   if (auto p = motion_problem(c)) return p;
+  if (auto p = supply_problem(c)) return p;
+  if (auto p = conductor_problem(c)) return p;
   return study_problem(c.study);
 }
 

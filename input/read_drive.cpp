@@ -46,7 +46,7 @@ mesh::WindingSpec read_winding(const Fields& root, const mesh::StatorGeometry& s
   w.n_poles = f.integer("poles", {.min = 2, .max = 2000});
   if (w.n_poles % 2 != 0) f.fail("poles", "an odd number", "an even number: poles come in north-south pairs (2p)");
   w.n_layers = f.integer("layers", {.min = 1, .max = 2});
-  w.parallel_paths = f.integer_or("parallel_paths", 1, {.min = 1});
+  w.parallel_paths = f.integer_or("parallel_paths", 1, {.min = 1, .max = 1000});
   if (f.has("sides")) {
     // A slot table replaces the rule: pitch and turns are in its rows.
     for (const char* key : {"coil_pitch", "turns_per_coil"})
@@ -56,8 +56,8 @@ mesh::WindingSpec read_winding(const Fields& root, const mesh::StatorGeometry& s
   }
   // The upper limit of the pitch depends on the slots: checked with the winding layout.
   w.coil_pitch = stator.kind == mesh::StatorKind::salient ? f.integer_or("coil_pitch", 1, {.min = 1, .max = 1})
-                                                          : f.integer("coil_pitch", {.min = 1});
-  w.turns_per_coil = f.integer("turns_per_coil", {.min = 1});
+                                                          : f.integer("coil_pitch", {.min = 1, .max = 1000});
+  w.turns_per_coil = f.integer("turns_per_coil", {.min = 1, .max = 100000});
   return w;
 }
 

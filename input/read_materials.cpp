@@ -31,6 +31,10 @@ solver::BhTable read_bh_table(const Fields& part) {
   t.b = read_reals(f, "b", {.min = 0, .max = 10, .unit = "T"});
   if (t.h.size() != t.b.size())
     f.fail("b", fmt::format("{} values of B for {} values of H", t.b.size(), t.h.size()), "one B per H");
+  // A first point off the origin would put a remanent flux density in the steel (or an H without B).
+  if (!t.h.empty() && (t.h.front() != 0.0 || t.b.front() != 0.0))
+    f.fail("h", fmt::format("the curve starts at (H, B) = ({:g} A/m, {:g} T)", t.h.front(), t.b.front()),
+           "a first point (0, 0), the demagnetized state");
   if (const auto problem = solver::BhCurve::table_problem(t.h, t.b))
     f.fail("b", *problem, "a monotone B-H curve of the solid steel");
   t.source = f.text_or("source", "");

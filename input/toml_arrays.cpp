@@ -87,7 +87,7 @@ std::vector<mesh::CoilSide> read_slot_table(const Fields& f, std::string_view ke
     const std::string phase = text(f, *row->get(2), key, at + "][2", phases, "a phase of [winding] phases");
     s.phase = phase[0] - 'A';
     s.direction = text(f, *row->get(3), key, at + "][3", {"+", "-"}, "the direction") == "+" ? 1 : -1;
-    s.turns = whole(f, *row->get(4), key, at + "][4", 1, 1000000, "number of turns");
+    s.turns = whole(f, *row->get(4), key, at + "][4", 1, 100000, "number of turns");
     if (!used.insert({s.slot, s.layer}).second)
       f.fail_at(*a.get(r), key, at, fmt::format("slot {} layer {} is used twice", s.slot, s.layer),
                 "each slot-layer in at most one row");

@@ -118,8 +118,8 @@ std::string describe(const RealRange& range) {
 }
 
 std::string describe(const IntRange& range) {
-  const bool has_min = range.min > std::numeric_limits<int>::min();
-  const bool has_max = range.max < std::numeric_limits<int>::max();
+  const bool has_min = range.min > -kMaxCount;
+  const bool has_max = range.max < kMaxCount || has_min;  // a lower limit alone still has kMaxCount above it
   if (has_min && has_max) return fmt::format("an integer from {} to {}", range.min, range.max);
   if (has_min) return fmt::format("an integer >= {}", range.min);
   if (has_max) return fmt::format("an integer <= {}", range.max);

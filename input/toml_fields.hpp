@@ -44,9 +44,13 @@ struct RealRange {
 };
 
 /// Bounds of an integer value, both included.
+/// The largest count a case file may give where its key sets no smaller limit: far beyond any real
+/// machine, and small enough that sums over a winding's coil sides cannot overflow.
+inline constexpr long long kMaxCount = 1'000'000;
+
 struct IntRange {
-  long long min = std::numeric_limits<int>::min();
-  long long max = std::numeric_limits<int>::max();
+  long long min = -kMaxCount;
+  long long max = kMaxCount;
 };
 
 /// What a value in range looks like, for messages: "a number in m, > 0 and <= 5".

@@ -42,7 +42,8 @@ std::vector<std::complex<double>> phase_phasors(const std::vector<CoilSide>& sid
 
 /// Equal conductors in every phase, as many go as return.
 bool balanced_in_turns(const std::vector<CoilSide>& sides, int m) {
-  std::vector<int> conductors(m, 0), net(m, 0);
+  // 64-bit sums: a phase may hold thousands of sides of up to 1e5 turns each.
+  std::vector<long long> conductors(m, 0), net(m, 0);
   for (const auto& s : sides) {
     conductors[s.phase] += s.turns;
     net[s.phase] += s.direction * s.turns;
@@ -55,7 +56,7 @@ bool balanced_in_turns(const std::vector<CoilSide>& sides, int m) {
 /// Balanced in turns, with fundamentals of equal size whose axes lie a phase shift apart.
 bool balanced(const std::vector<CoilSide>& sides, int m, int p) {
   if (!balanced_in_turns(sides, m)) return false;
-  int conductors = 0;
+  double conductors = 0.0;
   for (const auto& s : sides) conductors += s.phase == 0 ? s.turns : 0;
   const auto sum = phase_phasors(sides, m, p);
   if (std::abs(sum[0]) < 1e-9 * conductors) return false;

@@ -20,8 +20,10 @@ void write_atomically(const std::filesystem::path& path, const std::function<voi
 /// Renames a finished temporary file into place; throws OutputError.
 void commit_file(const std::filesystem::path& temporary, const std::filesystem::path& path);
 
-/// Creates the result folder and removes a summary.json left from an earlier run, which would
-/// otherwise mark a half-rewritten folder as complete. Throws OutputError.
+/// Creates the result folder and removes what an earlier run wrote there: summary.json first
+/// (which would mark a half-rewritten folder as complete), then every file of ours (tables, field
+/// files and their collection, iron loss, report and figures, left-over temporaries), so that no
+/// stale field file stands beside new results. Files of other names are left alone. Throws OutputError.
 void prepare_result_folder(const std::filesystem::path& dir);
 
 /// The temporary name used while `path` is being written.

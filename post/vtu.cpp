@@ -5,6 +5,7 @@
 #include <vtkCellArray.h>
 #include <vtkCellData.h>
 #include <vtkDoubleArray.h>
+#include <vtkErrorCode.h>
 #include <vtkFloatArray.h>
 #include <vtkIntArray.h>
 #include <vtkNew.h>
@@ -53,9 +54,14 @@ void write_grid(const std::filesystem::path& path, vtkUnstructuredGrid* grid) {
   writer->SetHeaderTypeToUInt32();
   writer->SetCompressorTypeToZLib();
   writer->SetCompressionLevel(1);  // measured here: about twice as fast as the default level
-  if (writer->Write() != 1) {
-    std::filesystem::remove(temporary);
-    throw OutputError("could not write " + path.string());
+  // VTK reports a short write (a full disk) through its error code, not always through Write()'s
+  // result: check both, and never rename an incomplete file to its final name.
+  if (writer->Write() != 1 || writer->GetErrorCode() != vtkErrorCode::NoError) {
+    const char* why = vtkErrorCode::GetStringFromErrorCode(writer->GetErrorCode());
+    std::error_code ec;
+    std::filesystem::remove(temporary, ec);
+    throw OutputError("could not write " + path.string() + " (" + (why && *why ? why : "unknown error") +
+                      "; disk full?)");
   }
   commit_file(temporary, path);
 }

@@ -10,6 +10,7 @@
 #include "input/case_reader.hpp"
 #include "input/input_error.hpp"
 #include "input/toml_fields.hpp"
+#include "sweep/sweep_metrics.hpp"
 
 namespace tf::sweep {
 namespace {
@@ -172,6 +173,7 @@ SweepFile read_sweep_file(const std::string& path) {
   }
   s.combine = root.choice_or("combine", {"grid", "zip"}, 0) == 0 ? Combine::grid : Combine::zip;
   s.rank_by = root.text_or("rank_by", "");
+  if (const auto p = rank_problem(s.rank_by); p && !s.rank_by.empty()) root.fail("rank_by", p->what, p->expected);
   if (const toml::table* fixed = doc.root.get_as<toml::table>("fixed")) read_fixed(doc, *fixed, "", s.fixed);
   const toml::array& vary = root.array("vary", "[[vary]] tables");
   if (vary.empty()) root.fail("vary", "no key to vary", "at least one [[vary]] table");

@@ -47,17 +47,26 @@ std::vector<double> read_metrics(const std::string& summary_json) {
   return values;
 }
 
+std::optional<RankProblem> rank_problem(const std::string& spec) {
+  const auto colon = spec.find(':');
+  const std::string name = spec.substr(0, colon), direction = colon == std::string::npos ? "" : spec.substr(colon + 1);
+  std::vector<std::string> keys;
+  for (const auto& m : sweep_metric_columns()) keys.push_back(m.key);
+  if (std::find(keys.begin(), keys.end(), name) == keys.end())
+    return RankProblem{"no such metric", fmt::format("one of: {}", fmt::join(keys, ", "))};
+  if (!direction.empty() && direction != "lowest" && direction != "highest")
+    return RankProblem{fmt::format("unknown direction '{}'", direction), "name, name:lowest or name:highest"};
+  return std::nullopt;
+}
+
 void rank_rows(post::SweepTable& t, const std::string& spec) {
+  if (const auto p = rank_problem(spec))
+    throw input::InputError(fmt::format("rank by '{}': {}; expected {}", spec, p->what, p->expected));
   const auto colon = spec.find(':');
   const std::string name = spec.substr(0, colon), direction = colon == std::string::npos ? "" : spec.substr(colon + 1);
   std::vector<std::string> keys;
   for (const auto& m : t.metrics) keys.push_back(m.key);
   const auto it = std::find(keys.begin(), keys.end(), name);
-  if (it == keys.end())
-    throw input::InputError(fmt::format("rank by '{}': no such metric; expected one of: {}", spec, fmt::join(keys, ", ")));
-  if (!direction.empty() && direction != "lowest" && direction != "highest")
-    throw input::InputError(fmt::format("rank by '{}': unknown direction '{}'; expected name, name:lowest or name:highest",
-                                 spec, direction));
   t.rank_by = static_cast<int>(it - keys.begin());
   auto& column = t.metrics[static_cast<std::size_t>(t.rank_by)];
   if (!direction.empty()) column.lower_is_better = direction == "lowest";

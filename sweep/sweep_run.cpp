@@ -10,6 +10,7 @@
 #include "sweep/child_process.hpp"
 #include "input/input_error.hpp"
 #include "sweep/sweep_collect.hpp"
+#include "sweep/sweep_metrics.hpp"
 #include "sweep/sweep_records.hpp"
 #include "post/atomic_file.hpp"
 #include "solver/stopwatch.hpp"
@@ -135,6 +136,9 @@ int dry_run(const SweepFile& s, const std::vector<Variant>& variants, const std:
 }  // namespace
 
 int run_sweep(const std::string& sweep_path, const SweepOptions& o, std::ostream& out, std::ostream& progress) {
+  // A misspelt ranking is found before the first variant runs, not after the last.
+  if (const auto p = rank_problem(o.rank_by); p && !o.rank_by.empty())
+    throw input::InputError(fmt::format("--rank-by {}: {}; expected {}", o.rank_by, p->what, p->expected));
   const SweepFile s = read_sweep_file(sweep_path);
   const std::vector<Variant> variants = expand_variants(s);
   const std::vector<std::string> problems = validate(s, variants);

@@ -57,6 +57,20 @@ TEST_CASE("a missing case file and a bad command line are bad input too") {
   CHECK(turnfield("run " + demo + " --fineness 0").status == 2);
 }
 
+TEST_CASE("numeric options refuse NaN and infinity: exit 2, a message, nothing written") {
+  const std::string demo = (fs::path(TF_SOURCE_DIR) / "cases" / "pump24_three_phase.toml").string();
+  for (const char* value : {"nan", "inf", "-inf", "NaN"}) {
+    for (const char* command : {"run", "mesh"}) {
+      INFO(command << " --fineness " << value);
+      const fs::path out = fresh_folder("nan_option");
+      const Outcome r = turnfield(std::string(command) + " " + demo + " --fineness " + value + " --out " + out.string());
+      CHECK(r.status == 2);
+      CHECK(r.output.find("expected a finite number") != std::string::npos);
+      CHECK_FALSE(fs::exists(out));
+    }
+  }
+}
+
 TEST_CASE("a report step beyond the study's steps is bad input: exit 2, a message, nothing written") {
   const std::string demo = std::string(TF_SOURCE_DIR) + "/cases/pump24_three_phase.toml";  // 36 steps
   const fs::path out = fresh_folder("report_step");

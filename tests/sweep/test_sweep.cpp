@@ -52,8 +52,10 @@ struct Run {
 
 /// One uninterrupted run with two variants at a time, made once per test program.
 const Run& reference_run() {
+  // One per test process: ctest runs the test cases as processes at once, and a shared folder
+  // would be cleared by one while another reads it.
   static const Run run = [] {
-    const fs::path dir = fresh_folder("sweep_reference");
+    const fs::path dir = fresh_folder("sweep_reference_" + std::to_string(getpid()));
     return Run{dir, turnfield("sweep " + kStudy + " --out " + dir.string() + " -j 2")};
   }();
   return run;
@@ -190,6 +192,14 @@ TEST_CASE("a sweep's command line refuses what it cannot do, with exit status 2"
   CHECK(turnfield("sweep " + kStudy + " --shard 3/2 --dry-run").status == 2);
   CHECK(turnfield("sweep " + kStudy + " --shard x --dry-run").status == 2);
   CHECK(turnfield("collect " + fs::temp_directory_path().string()).status == 2);  // not a sweep's folder
+  // A misspelt ranking on the command line stops the sweep before anything runs, --dry-run too.
+  for (const char* dry : {"", " --dry-run"}) {
+    const fs::path out = fresh_folder("sweep_bad_rank");
+    const auto bad = turnfield("sweep " + kStudy + " --rank-by fundamental_t --out " + out.string() + dry);
+    CHECK(bad.status == 2);
+    CHECK(bad.output.find("--rank-by fundamental_t: no such metric") != std::string::npos);
+    CHECK_FALSE(fs::exists(out));
+  }
   const auto r = turnfield("collect " + reference_run().out.string() + " --rank-by torque");
   CHECK(r.status == 2);
   CHECK(r.output.find("no such metric") != std::string::npos);

@@ -108,6 +108,10 @@ TEST_CASE("a bad sweep file is refused with its line and key") {
   CHECK(message_of(study("step", "[[vary]]\nkey = \"winding.coil_pitch\"\nrange = { start = 4, stop = 6, step = -1 }\n")).find("does not lead from start to stop") != std::string::npos);
   CHECK(message_of(study("both", "[[vary]]\nkey = \"winding.coil_pitch\"\nrange = { start = 4, stop = 6, step = 1, count = 3 }\n")).find("either count or step") != std::string::npos);
   CHECK(message_of(study("none", "title = \"no keys\"\n")).find("vary") != std::string::npos);
+  // A misspelt ranking is found when the file is read, before any variant runs.
+  CHECK(message_of(study("rank", "rank_by = \"fundamental_t\"\n[[vary]]\nkey = \"winding.coil_pitch\"\nvalues = [4, 5]\n"))
+            .find("study.toml:2: rank_by = \"fundamental_t\": no such metric; expected one of: fundamental_T") !=
+        std::string::npos);
   CHECK(message_of(study("same", "[[vary]]\nkey = \"winding.coil_pitch\"\nvalues = [4, 4]\n")).empty());  // read fine ...
   CHECK_THROWS_AS(expand_variants(read_sweep_file(study("same2", "[[vary]]\nkey = \"winding.coil_pitch\"\nvalues = [4, 4]\n"))), InputError);  // ... but two equal variants are refused
 }
