@@ -18,8 +18,8 @@ namespace tf::input {
 namespace {
 
 // Generous sanity limits: they catch unit slips (mm typed as m), not unusual machines.
-constexpr RealRange radius{.min = 0, .max = 5, .min_excluded = true, .unit = "m"};
-constexpr RealRange slot_size{.min = 0, .max = 1, .min_excluded = true, .unit = "m"};
+constexpr RealRange radius{.min = 0, .max = 5, .min_excluded = true, .unit = "m", .smallest = kSmallestPart};
+constexpr RealRange slot_size{.min = 0, .max = 1, .min_excluded = true, .unit = "m", .smallest = kSmallestPart};
 
 mesh::Slot read_slot(const Fields& stator) {
   const Fields f = stator.table("slot", {"shape", "width", "depth", "opening", "tip_height", "wedge_height"});
@@ -36,7 +36,7 @@ mesh::Slot read_slot(const Fields& stator) {
   if (slot.shape == mesh::SlotShape::semi_closed) {
     slot.opening_width = f.real("opening", slot_size);
     slot.tip_height = f.real("tip_height", slot_size);
-    slot.wedge_height = f.real_or("wedge_height", 0.0, {.min = 0, .max = 1, .unit = "m"});
+    slot.wedge_height = f.real_or("wedge_height", 0.0, {.min = 0, .max = 1, .unit = "m", .smallest = kSmallestPart});
   }
   return slot;
 }
@@ -49,8 +49,8 @@ void read_poles(const Fields& stator, mesh::StatorGeometry& s) {
   s.n_positions = f.integer("count", {.min = 2, .max = 200});
   if (s.n_positions % 2 != 0) f.fail("count", "an odd number", "an even number of poles");
   // Up to, not including, the pole pitch; that the shoes leave room between them is a consistency check.
-  const RealRange arc{
-      .min = 0, .max = 360.0 / s.n_positions, .min_excluded = true, .max_excluded = true, .unit = "degrees"};
+  const RealRange arc{.min = 0, .max = 360.0 / s.n_positions, .min_excluded = true, .max_excluded = true,
+                      .unit = "degrees", .smallest = kSmallestArc};
   s.poles.shoe_arc = f.real("shoe_arc_deg", arc) * std::numbers::pi / 180.0;
   s.poles.shoe_height = f.real("shoe_height", slot_size);
   s.poles.body_width = f.real("body_width", slot_size);
@@ -65,8 +65,8 @@ void read_belts(const Fields& stator, mesh::StatorGeometry& s) {
   const Fields f = stator.table("belts", {"count", "span_deg", "outer_radius"});
   s.n_positions = f.integer("count", {.min = 2, .max = 2000});
   // Up to, not including, the belt pitch; that the sectors leave room between them is a consistency check.
-  const RealRange arc{
-      .min = 0, .max = 360.0 / s.n_positions, .min_excluded = true, .max_excluded = true, .unit = "degrees"};
+  const RealRange arc{.min = 0, .max = 360.0 / s.n_positions, .min_excluded = true, .max_excluded = true,
+                      .unit = "degrees", .smallest = kSmallestArc};
   s.belts.span = f.real("span_deg", arc) * std::numbers::pi / 180.0;
   // Only the plain range here; "between the bore and the outer radius" is a consistency check.
   s.belts.outer_radius = f.real("outer_radius", radius);

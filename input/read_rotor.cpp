@@ -3,11 +3,14 @@
 #include <numbers>
 #include <optional>
 
+#include <fmt/format.h>
+
 namespace tf::input {
 namespace {
 
-constexpr RealRange radius{.min = 0, .max = 5, .min_excluded = true, .unit = "m"};
-constexpr RealRange part_size{.min = 0, .max = 1, .min_excluded = true, .unit = "m"};
+constexpr RealRange radius{.min = 0, .max = 5, .min_excluded = true, .unit = "m", .smallest = kSmallestPart};
+constexpr RealRange part_size{.min = 0, .max = 1, .min_excluded = true, .unit = "m", .smallest = kSmallestPart};
+constexpr RealRange optional_part{.min = 0, .max = 5, .unit = "m", .smallest = kSmallestPart};  ///< 0: none
 constexpr double kDeg = std::numbers::pi / 180.0;
 
 /// [rotor.magnets]: arc magnets on the iron surface; pole 1 is centred on the +x axis.
@@ -18,7 +21,13 @@ mesh::SurfaceMagnets read_magnets(const Fields& rotor) {
   if (m.n_poles % 2 != 0) f.fail("poles", "an odd number of poles", "an even number: north and south alternate");
   m.thickness = f.real("thickness", part_size);
   const double pitch_deg = 360.0 / m.n_poles;
-  m.arc = f.real_or("arc_deg", pitch_deg, {.min = 0, .max = pitch_deg, .min_excluded = true, .unit = "degrees"}) * kDeg;
+  m.arc = f.real_or("arc_deg", pitch_deg,
+                    {.min = 0, .max = pitch_deg, .min_excluded = true, .unit = "degrees", .smallest = kSmallestArc}) *
+          kDeg;
+  // Between magnets narrower than the pitch there must be room for a part, too.
+  if (m.arc < pitch_deg * kDeg && (pitch_deg - m.arc / kDeg) < kSmallestArc)
+    f.fail("arc_deg", fmt::format("leaves {:.3g} degrees between neighbouring magnets", pitch_deg - m.arc / kDeg),
+           fmt::format("the pole pitch {:g} (magnets touching) or at most {:g} degrees", pitch_deg, pitch_deg - kSmallestArc));
   m.direction = f.choice_or("magnetization", {"radial", "parallel"}, 0) == 0 ? mesh::Magnetization::radial
                                                                             : mesh::Magnetization::parallel;
   return m;
@@ -33,7 +42,7 @@ mesh::RotorBars read_bars(const Fields& rotor) {
   s.depth = f.real("depth", part_size);
   s.bridge = f.real("bridge", part_size);
   // "Narrower than the bar" is a consistency check.
-  s.opening_width = f.real_or("opening", 0.0, {.min = 0, .max = 1, .unit = "m"});
+  s.opening_width = f.real_or("opening", 0.0, optional_part);
   return s;
 }
 
@@ -50,10 +59,10 @@ mesh::RotorGeometry read_rotor(const Fields& root) {
     for (const char* key : {"shaft_radius", "sleeve_thickness"})
       f.reject(key, "not used without a rotor", "no such key, or kind = \"iron\"");
   else
-    r.shaft_radius = f.real_or("shaft_radius", 0.0, {.min = 0, .max = 5, .unit = "m"});
+    r.shaft_radius = f.real_or("shaft_radius", 0.0, optional_part);
   if (r.kind == mesh::RotorKind::iron)
     // "Thinner than the rotor outside the shaft" is a consistency check.
-    r.sleeve_thickness = f.real_or("sleeve_thickness", 0.0, {.min = 0, .max = 5, .min_excluded = true, .unit = "m"});
+    r.sleeve_thickness = f.real_or("sleeve_thickness", 0.0, radius);
   else if (r.kind != mesh::RotorKind::none)
     f.reject("sleeve_thickness", "a sleeve is drawn on smooth iron rotors only", "no such key, or kind = \"iron\"");
   if (r.kind == mesh::RotorKind::surface_magnet)

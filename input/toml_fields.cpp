@@ -297,6 +297,13 @@ double Fields::real(std::string_view key, const RealRange& range) const {
   const double v = *value;
   if (!std::isfinite(v)) fail(key, "not a finite number", expected);
   if (!within(v, range)) fail(key, "out of range", expected);
+  if (v != 0.0 && std::abs(v) < range.smallest) {
+    // Lengths in millimetres: "0.05 mm" reads better than "5e-05 m".
+    const std::string limit = range.unit == "m" ? fmt::format("{:g} mm", 1e3 * range.smallest)
+                                                : fmt::format("{:g} {}", range.smallest, range.unit);
+    fail(key, "below the smallest part turnfield meshes (" + limit + ")",
+         (range.min == 0.0 && !range.min_excluded ? "0 (none), or " : "") + limit + " or more");
+  }
   return v;
 }
 

@@ -41,7 +41,16 @@ struct RealRange {
   bool min_excluded = false;  ///< the value must be > min rather than >= min
   bool max_excluded = false;  ///< the value must be < max rather than <= max
   std::string_view unit = {};
+  /// A part to be meshed: a value other than 0 must be at least this large (kSmallestPart for
+  /// lengths [m], kSmallestArc for arcs [degrees]); 0: no such limit.
+  double smallest = 0.0;
 };
+
+/// The smallest length [m] and arc [degrees] of a part turnfield meshes. Below them the mesher
+/// cannot place elements reliably (nanometre parts made Gmsh fail or abort); 0.05 mm is also the
+/// smallest air gap the checks allow, and a 0.1 degree arc spans about 0.05 mm at a 30 mm radius.
+inline constexpr double kSmallestPart = 0.05e-3;
+inline constexpr double kSmallestArc = 0.1;
 
 /// Bounds of an integer value, both included.
 /// The largest count a case file may give where its key sets no smaller limit: far beyond any real
