@@ -132,7 +132,7 @@ TEST_CASE("every case in cases/ runs headless on a coarse mesh and gives a sound
     if (entry.path().extension() != ".toml") continue;
     ++n_cases;
     INFO(entry.path().string());
-    const fs::path out = fresh_folder(entry.path().stem().string());
+    const fs::path out = fresh_folder("every_case_" + entry.path().stem().string());
     // Rotor-motion and saturated studies solve every step anew: 12 steps keep this test quick (they
     // are checked in depth in test_motion_cases.cpp and tests/study/test_saturated_phase_angles.cpp).
     const bool turns = is_motion_case(entry.path()), nonlinear = saturates(entry.path());

@@ -35,12 +35,13 @@ std::string text_of(const fs::path& path) {
   return s.str();
 }
 
-/// Runs a case on a coarse mesh with `steps` steps into a fresh folder; returns the folder.
-fs::path run_coarse(input::Case c, int steps, study::RunOutcome& outcome) {
+/// Runs a case on a coarse mesh with `steps` steps into a fresh folder of its own (test cases run as
+/// processes at once: no two may share one); returns the folder.
+fs::path run_coarse(input::Case c, int steps, const std::string& folder, study::RunOutcome& outcome) {
   c.mesh.fineness = 0.5;
   input::override_steps(c, steps);
   c.study.n_field_files = 0;
-  const fs::path dir = fs::temp_directory_path() / ("turnfield_pipeline_" + fs::path(c.path).stem().string());
+  const fs::path dir = fs::temp_directory_path() / ("turnfield_pipeline_" + folder);
   fs::remove_all(dir);
   std::ostringstream quiet;
   outcome = study::run_study(c, {dir, false, 0}, quiet);
@@ -87,7 +88,7 @@ TEST_CASE("the mesh plan carries what the study needs: sliding-circle steps, ski
 
 TEST_CASE("a saturated phase-angle study reports the rotating field, Newton's work and no torque") {
   study::RunOutcome outcome;
-  const fs::path dir = run_coarse(bundled("pump24_three_phase_saturated"), 12, outcome);
+  const fs::path dir = run_coarse(bundled("pump24_three_phase_saturated"), 12, "saturated", outcome);
   CHECK(outcome.strategy == study::Strategy::step_by_step);
   REQUIRE(outcome.field.has_value());
 
@@ -131,9 +132,8 @@ TEST_CASE("at currents too small to saturate, Newton step by step gives the line
   REQUIRE(study::choose_strategy(weak) == study::Strategy::step_by_step);
   REQUIRE(study::choose_strategy(linear) == study::Strategy::superposition);
   study::RunOutcome nonlinear_run, linear_run;
-  run_coarse(weak, 12, nonlinear_run);
-  linear.path = "linear_copy.toml";  // its own result folder
-  run_coarse(linear, 12, linear_run);
+  run_coarse(weak, 12, "weak_nonlinear", nonlinear_run);
+  run_coarse(linear, 12, "weak_linear", linear_run);
   REQUIRE(nonlinear_run.field.has_value());
   REQUIRE(linear_run.field.has_value());
   // Measured: 8e-5 and 1e-5 apart (the curve bends a little even at the lowest fields, and Newton
