@@ -25,8 +25,9 @@ struct ChildOutcome {
 
 /// Runs work() in a forked child and returns how it ended. The child starts with a copy of this
 /// process's memory, so work may read anything the caller can; nothing it changes comes back but
-/// the bytes it returns. Call it while this process runs one thread (before solvers start theirs).
-/// Throws MeshError only when the child cannot be started or waited for.
+/// the bytes it returns. The child runs the calling thread only, so no other thread may hold a lock
+/// work needs: our meshing runs before the solvers' threads start, or while they idle between solves
+/// (`turnfield compare`). Throws MeshError only when the child cannot be started or waited for.
 ChildOutcome run_in_child(const std::function<std::string()>& work);
 
 }  // namespace tf::mesh::detail
