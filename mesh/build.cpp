@@ -7,7 +7,6 @@
 #include <sstream>
 #include <string>
 
-#include "mesh/gmsh_session.hpp"
 #include "mesh/replicate.hpp"
 #include "mesh/rotor_shapes.hpp"
 #include "mesh/sector.hpp"
@@ -125,7 +124,7 @@ Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
     throw MeshError(message.str());
   }
 
-  detail::GmshSession session;
+  // Each sector is meshed in a Gmsh session of its own, in a child process (mesh/sector.cpp).
   if (!g.stator.open_boundary) {
     const detail::SectorMesh stator = detail::mesh_stator_sector(g, layers, per_slot, size);
     const double rotor_start = detail::rotor_start_angle(g, stator.start_angle, n_sliding, n_rotor);

@@ -6,11 +6,15 @@
 #include <algorithm>
 #include <cmath>
 #include <numbers>
+#include <stdexcept>
 #include <string>
 #include <unordered_map>
 
 #include <gmsh.h>
 
+#include "mesh/gmsh_session.hpp"
+#include "mesh/isolated.hpp"
+#include "mesh/sector_bytes.hpp"
 #include "mesh/sector_shapes.hpp"
 
 namespace tf::mesh::detail {
@@ -159,30 +163,72 @@ SectorMesh mesh_pieces(const std::vector<Piece>& pieces, const SectorFrame& f, i
   return out;
 }
 
-/// Gmsh reports failures by exception with its own words; add which sector failed.
+/// What is meshed, for messages: the piece, and which dimensions to look at when Gmsh fails on it.
+struct Meshed {
+  std::string piece;  ///< "rotor sector (magnets)"
+  std::string check;  ///< "the rotor's dimensions (shaft, magnets)"
+};
+
+/// The mesh the child sent, or a MeshError naming the piece and how the mesher failed. Our own
+/// MeshErrors say what went wrong already and pass through as they are.
+SectorMesh sector_or_throw(const Meshed& m, const ChildOutcome& o) {
+  if (o.end == ChildEnd::result) return decode_sector(o.text);
+  if (o.end == ChildEnd::mesh_error) throw MeshError(o.text);
+  std::string why = o.end == ChildEnd::exception ? o.text : "the mesher " + o.how + (o.text.empty() ? "" : ": " + o.text);
+  if (why.empty()) why = "an unknown error";
+  throw MeshError("meshing the " + m.piece + " failed inside Gmsh: " + why +
+                  "; the smallest parts of that sector are the usual cause: check " + m.check);
+}
+
+/// Meshes in a child process with a Gmsh session of its own (mesh/isolated.hpp says why), so that
+/// not even an abort inside Gmsh can end this process.
 template <class Build>
-SectorMesh with_context(const char* what, Build build) {
-  try {
-    gmsh::clear();
-    return build();
-  } catch (const MeshError&) {
-    throw;
-  } catch (const std::exception& e) {
-    throw MeshError(std::string("meshing the ") + what + " failed: " + e.what());
-  } catch (...) {
-    throw MeshError(std::string("meshing the ") + what + " failed inside Gmsh");
-  }
+SectorMesh in_child(const Meshed& m, Build build) {
+  return sector_or_throw(m, run_in_child([&] {
+    const GmshSession session;
+    try {
+      return encode_sector(build());
+    } catch (const std::exception&) {
+      throw;
+    } catch (...) {  // Gmsh 4.8 throws bare values; its log keeps the words
+      std::string last;
+      gmsh::logger::getLastError(last);
+      throw std::runtime_error(last);
+    }
+  }));
+}
+
+/// The parts of the rotor whose sizes matter to the mesher, as a list for messages.
+std::string rotor_parts(const RotorGeometry& r) {
+  std::string parts = r.shaft_radius > 0.0 ? "shaft" : "";
+  auto add = [&](const char* part) { parts += (parts.empty() ? "" : ", ") + std::string(part); };
+  if (r.sleeve_thickness > 0.0) add("sleeve");
+  if (r.kind == RotorKind::surface_magnet) add("magnets and the air between them");
+  if (r.kind == RotorKind::slotted) add("bars and their openings");
+  return parts.empty() ? "radius" : parts;
+}
+
+Meshed rotor_meshed(const RotorGeometry& r) {
+  const char* kind = r.kind == RotorKind::surface_magnet ? "magnets"
+                     : r.kind == RotorKind::slotted      ? "bars"
+                     : r.kind == RotorKind::iron         ? "smooth iron"
+                                                         : "no rotor: air";
+  return {std::string("rotor sector (") + kind + ")", "the rotor's dimensions (" + rotor_parts(r) + ")"};
+}
+
+Meshed stator_meshed(StatorKind kind) {
+  if (kind == StatorKind::salient)
+    return {"stator pole pitch", "the stator's dimensions (pole shoes, bodies and coil sides)"};
+  if (kind == StatorKind::slotless)
+    return {"stator belt pitch", "the stator's dimensions (conductor sectors, the air between them, the iron ring)"};
+  return {"stator slot pitch", "the stator's dimensions (slots, their openings and tooth tips)"};
 }
 
 }  // namespace
 
 SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n_sliding_segments, const SizeRule& size,
                               int n_outer_segments) {
-  const StatorKind kind = g.stator.kind;
-  const char* what = kind == StatorKind::salient    ? "stator pole pitch"
-                     : kind == StatorKind::slotless ? "stator belt pitch"
-                                                    : "stator slot pitch";
-  return with_context(what, [&] {
+  return in_child(stator_meshed(g.stator.kind), [&] {
     const double a = std::numbers::pi / g.stator.n_positions;
     // A = 0 on the outermost circle: the stator's outer surface, or the boundary beyond it.
     const double outer = std::max(g.stator.outer_radius, g.stator.boundary_radius);
@@ -192,7 +238,7 @@ SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n
 }
 
 SectorMesh mesh_exterior_image(const Geometry& g, int n_outer_segments, const SizeRule& size) {
-  return with_context("exterior image", [&] {
+  return in_child({"exterior image", "the boundary radius"}, [&] {
     const double a = std::numbers::pi / g.stator.n_positions, r = g.stator.boundary_radius;
     const SectorFrame f{-a, 2 * a, -1.0, r, 1e-6 * r};
     return mesh_pieces(build_image_pieces(g), f, 0, size, n_outer_segments);
@@ -201,7 +247,7 @@ SectorMesh mesh_exterior_image(const Geometry& g, int n_outer_segments, const Si
 
 SectorMesh mesh_rotor_sector(const Geometry& g, int n_sectors, double start_angle, int n_sliding_segments,
                              const SizeRule& size) {
-  return with_context("rotor sector", [&] {
+  return in_child(rotor_meshed(g.rotor), [&] {
     const double span = 2 * std::numbers::pi / n_sectors;
     const SectorFrame f{start_angle, span, g.mid_gap_radius(), 0.0, 1e-6 * g.stator.outer_radius};
     return mesh_pieces(build_rotor_pieces(g, start_angle, start_angle + span), f, n_sliding_segments, size);
