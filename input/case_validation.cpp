@@ -9,6 +9,7 @@
 
 #include <fmt/format.h>
 
+#include "mesh/build.hpp"
 #include "mesh/salient_outline.hpp"
 #include "mesh/winding.hpp"
 
@@ -492,12 +493,37 @@ std::optional<Problem> conductor_problem(const Case& c) {
                  "a conductivity above 0 S/m for the rotor iron, shaft, sleeve or stator iron"};
 }
 
+/// The key of the part that sets mesh::narrowest_part, for the message.
+std::string narrowest_key(const mesh::Geometry& g) {
+  const double w = mesh::narrowest_part(g);
+  if (g.rotor.kind == mesh::RotorKind::slotted && g.rotor.bars.width == w) return "rotor.bars.width";
+  if (g.stator.kind == mesh::StatorKind::slotted && g.stator.slot.width == w) return "stator.slot.width";
+  if (g.stator.kind == mesh::StatorKind::salient)
+    return g.stator.poles.body_width == w ? "stator.poles.body_width" : "stator.poles.coil_width";
+  return g.stator.kind == mesh::StatorKind::slotless ? "stator.belts.span_deg" : "mesh.fineness";
+}
+
+std::optional<Problem> mesh_size_problem(const Case& c) {
+  // Elements far from the gap resolve the narrowest part, so a part narrow next to the machine
+  // makes the whole mesh as fine as itself: refuse it before meshing rather than run for hours.
+  const double n = mesh::least_triangles(c.geometry, c.mesh);
+  if (n <= mesh::kMostTriangles) return std::nullopt;
+  const double w = mesh::narrowest_part(c.geometry), scale = std::sqrt(n / mesh::kMostTriangles);
+  return Problem{narrowest_key(c.geometry),
+                 fmt::format("the whole mesh must resolve this {:.3g} mm part: at least {:.0f} million triangles at "
+                             "fineness {:g}",
+                             1e3 * w, n / 1e6, c.mesh.fineness),
+                 fmt::format("a part at least {:.3g} mm wide at this fineness (at most {:.0f} million triangles)",
+                             1e3 * w * scale, mesh::kMostTriangles / 1e6)};
+}
+
 std::optional<Problem> case_problem(const Case& c) {
   if (auto p = geometry_problem(c.geometry)) return p;
   if (auto p = winding_problem(c.winding, c.geometry.stator)) return p;
   if (auto p = motion_problem(c)) return p;
   if (auto p = supply_problem(c)) return p;
   if (auto p = conductor_problem(c)) return p;
+  if (auto p = mesh_size_problem(c)) return p;
   return study_problem(c.study);
 }
 

@@ -36,10 +36,10 @@ double rotor_narrowest(const RotorGeometry& r) {
   return r.kind == RotorKind::slotted ? r.bars.width : 1e30;
 }
 
-/// The narrowest part of the stator that elements far from the gap must still resolve [m]: a slot;
-/// a salient pole's body or coil side; a slotless stator's winding annulus, the conductor sectors
-/// and the air between them at the bore, and its iron ring (but no finer than the air gap, so that
-/// a very thin ring does not make the whole mesh as fine as itself); and a slotted rotor's bars.
+}  // namespace
+
+// The slotless stator's iron ring counts no finer than the air gap, so that a very thin ring does
+// not make the whole mesh as fine as itself.
 double narrowest_part(const Geometry& g) {
   const StatorGeometry& s = g.stator;
   if (s.kind == StatorKind::salient)
@@ -51,6 +51,8 @@ double narrowest_part(const Geometry& g) {
   const double ring = std::max(s.outer_radius - s.belts.outer_radius, g.gap_length());
   return std::min({s.belts.outer_radius - s.bore_radius, conductor, air, ring, rotor_narrowest(g.rotor)});
 }
+
+namespace {
 
 /// How many copies of the sector c asks for make the machine (1: the full model); throws MeshError
 /// when they do not close up round it.
@@ -79,8 +81,24 @@ ElementSizes element_sizes(const Geometry& g, const MeshControls& c) {
   return {g.gap_length() / across_gap, largest, 0.25};
 }
 
+double least_triangles(const Geometry& g, const MeshControls& c) {
+  const double h = element_sizes(g, c).largest;
+  const double r = g.stator.outer_radius;
+  return kPi * r * r / (std::sqrt(3.0) / 4.0 * h * h);
+}
+
 Mesh build(const Geometry& g, const SlotLayers& layers, const MeshControls& c) {
   const ElementSizes h = element_sizes(g, c);
+  // A part so narrow that the whole mesh must be as fine as it would exhaust memory or time (the
+  // case checks refuse it first, naming the key; this guards every other caller).
+  if (const double n = least_triangles(g, c); n > kMostTriangles) {
+    std::ostringstream message;
+    message << "elements far from the gap must resolve the narrowest part, " << narrowest_part(g) * 1e3
+            << " mm wide: at least " << static_cast<long>(n / 1e6) << " million triangles at fineness " << c.fineness
+            << "; widen that part or lower [mesh] fineness (at most " << static_cast<long>(kMostTriangles / 1e6)
+            << " million)";
+    throw MeshError(message.str());
+  }
   const double r_slide = g.mid_gap_radius();
   const double half_gap = 0.5 * g.gap_length();
   const double r_stator = g.stator.outer_radius;
