@@ -10,8 +10,10 @@
 #include <fstream>
 #include <iterator>
 #include <nlohmann/json.hpp>
+#include <random>
 #include <string>
 
+#include "support/case_mutations.hpp"
 #include "support/cli_run.hpp"
 
 namespace fs = std::filesystem;
@@ -55,6 +57,24 @@ TEST_CASE("a missing case file and a bad command line are bad input too") {
   CHECK(turnfield("run").status == 2);
   const std::string demo = std::string(TF_SOURCE_DIR) + "/cases/pump24_three_phase.toml";
   CHECK(turnfield("run " + demo + " --fineness 0").status == 2);
+}
+
+TEST_CASE("fuzz through the program: 60 mutated case files end with exit status 0 or 2, in bounded time") {
+  // The in-process run (tests/input/test_fuzz_case_reader.cpp) sees exceptions; this one sees what a
+  // user sees: the exit status (0 valid, 2 refused; a crash, an abort or a hang is none of them).
+  const auto bases = tf::testing::bundled_cases(fs::path(TF_SOURCE_DIR) / "cases");
+  std::mt19937 rng(4122026);
+  const fs::path dir = fresh_folder("fuzz_cli");
+  fs::create_directories(dir);
+  for (int n = 0; n < 60; ++n) {
+    const auto& [name, text] = bases[static_cast<std::size_t>(n) % bases.size()];
+    const fs::path file = dir / ("input_" + std::to_string(n) + "_" + name);
+    std::ofstream(file) << tf::testing::mutate(text, n % 5, rng);
+    INFO(file.string());
+    // timeout(1) exits 124 for a hang, the shell 128 + n for a death by signal n.
+    const Outcome r = tf::testing::run_command("timeout 30 " + std::string(TF_BINARY) + " check " + file.string());
+    CHECK((r.status == 0 || r.status == 2));
+  }
 }
 
 TEST_CASE("numeric options refuse NaN and infinity: exit 2, a message, nothing written") {

@@ -8,8 +8,6 @@
 #include <iterator>
 #include <string>
 
-#include <sys/wait.h>
-
 #include "support/cli_run.hpp"
 
 namespace fs = std::filesystem;
@@ -35,18 +33,12 @@ TEST_CASE("a disk that fills while field files are written leaves no truncated f
   const auto r = turnfield("run " + kDemo + " --fineness 2 --field-files 3 --out " + out.string());
   REQUIRE(r.status == 0);  // the same run without a limit succeeds
   fs::remove_all(out);
-  const std::string limited = "bash -c 'trap \"\" XFSZ; ulimit -f 1500; exec " + std::string(TF_BINARY) + " run " +
-                              kDemo + " --fineness 2 --field-files 3 --out " + out.string() + "' 2>&1";
-  FILE* pipe = popen(limited.c_str(), "r");
-  REQUIRE(pipe != nullptr);
-  std::string output;
-  char buffer[4096];
-  while (fgets(buffer, sizeof buffer, pipe)) output += buffer;
-  const int status = pclose(pipe);
-  CHECK(WIFEXITED(status));
-  CHECK(WEXITSTATUS(status) == 1);
-  CHECK(output.find("could not write") != std::string::npos);
-  CHECK(output.find("field_0000.vtu") != std::string::npos);
+  const auto limited = tf::testing::run_command("bash -c 'trap \"\" XFSZ; ulimit -f 1500; exec " +
+                                                std::string(TF_BINARY) + " run " + kDemo +
+                                                " --fineness 2 --field-files 3 --out " + out.string() + "'");
+  CHECK(limited.status == 1);
+  CHECK(limited.output.find("could not write") != std::string::npos);
+  CHECK(limited.output.find("field_0000.vtu") != std::string::npos);
   CHECK_FALSE(fs::exists(out / "summary.json"));
   CHECK(count_field_files(out) == 0);
   CHECK_FALSE(fs::exists(out / "field.pvd"));

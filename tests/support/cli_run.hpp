@@ -20,10 +20,10 @@ struct Outcome {
   std::string output;  // standard output and standard error together
 };
 
-/// Runs the program built with the tests (TF_BINARY) with the given arguments.
-inline Outcome turnfield(const std::string& arguments) {
-  const std::string command = std::string(TF_BINARY) + " " + arguments + " 2>&1";
-  FILE* pipe = popen(command.c_str(), "r");
+/// Runs a shell command line; its exit status (128 + n for a death by signal n, as the shell
+/// reports it) and its standard output and standard error together.
+inline Outcome run_command(const std::string& command) {
+  FILE* pipe = popen((command + " 2>&1").c_str(), "r");
   REQUIRE(pipe != nullptr);
   std::string output;
   std::array<char, 4096> buffer{};
@@ -31,6 +31,9 @@ inline Outcome turnfield(const std::string& arguments) {
   const int raw = pclose(pipe);
   return {WIFEXITED(raw) ? WEXITSTATUS(raw) : -1, output};
 }
+
+/// Runs the program built with the tests (TF_BINARY) with the given arguments.
+inline Outcome turnfield(const std::string& arguments) { return run_command(std::string(TF_BINARY) + " " + arguments); }
 
 /// An empty folder path under the system's temporary folder (removed if it existed).
 inline std::filesystem::path fresh_folder(const std::string& name) {
