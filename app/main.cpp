@@ -3,8 +3,10 @@
 // solving or writing.
 
 #include <algorithm>
+#include <cerrno>
 #include <cmath>
 #include <cstdlib>
+#include <cstring>
 #include <filesystem>
 #include <iostream>
 #include <sstream>
@@ -13,6 +15,7 @@
 #include <vector>
 
 #include <CLI/CLI.hpp>
+#include <unistd.h>
 
 #include "app/winding_report.hpp"
 #include "input/case_reader.hpp"
@@ -30,6 +33,21 @@ namespace {
 namespace fs = std::filesystem;
 
 fs::path default_out_dir(const std::string& case_path) { return fs::path("results") / fs::path(case_path).stem(); }
+
+/// Refuses an output folder that cannot be written, before any work (a solve may take minutes):
+/// a path that is a file, or whose nearest existing folder is not writable. Creates nothing, so a
+/// command refused for another reason afterwards leaves no trace. Throws InputError (exit 2).
+void check_out_folder(const fs::path& dir) {
+  std::error_code ec;
+  fs::path existing = fs::absolute(dir, ec);
+  while (!existing.empty() && !fs::exists(existing, ec)) existing = existing.parent_path();
+  if (fs::exists(existing, ec) && !fs::is_directory(existing, ec))
+    throw tf::input::InputError("--out " + dir.string() + ": " + existing.string() +
+                                " is a file; expected a folder to write the results in");
+  if (access(existing.c_str(), W_OK | X_OK) != 0)
+    throw tf::input::InputError("--out " + dir.string() + ": cannot write in " + existing.string() + ": " +
+                                std::strerror(errno));
+}
 
 /// "k/N" with 1 <= k <= N; throws input::InputError otherwise.
 tf::sweep::Shard parse_shard(const std::string& text) {
@@ -148,12 +166,15 @@ int main(int argc, char** argv) {
       sweep_options.shard = parse_shard(shard);
       sweep_options.rank_by = rank_by;
       sweep_options.out_dir = out_dir.empty() ? default_out_dir(case_path) : fs::path(out_dir);
+      check_out_folder(sweep_options.out_dir);
       return tf::sweep::run_sweep(case_path, sweep_options, std::cout, std::cerr);
     });
   if (collect->parsed())
     return guarded([&] {
       std::vector<fs::path> dirs(collect_dirs.begin(), collect_dirs.end());
-      return tf::sweep::collect_sweep({dirs, out_dir.empty() ? dirs.front() : fs::path(out_dir), rank_by}, std::cout);
+      const fs::path out = out_dir.empty() ? dirs.front() : fs::path(out_dir);
+      check_out_folder(out);
+      return tf::sweep::collect_sweep({dirs, out, rank_by}, std::cout);
     });
 
   if (compare->parsed())
@@ -164,8 +185,9 @@ int main(int argc, char** argv) {
         if (fineness > 0.0) cases.back().mesh.fineness = fineness;
         if (steps > 0) tf::input::override_steps(cases.back(), steps);
       }
-      tf::study::compare_cases(cases, out_dir.empty() ? fs::path("results") / "comparison" : fs::path(out_dir),
-                             field_files, std::cout);
+      const fs::path out = out_dir.empty() ? fs::path("results") / "comparison" : fs::path(out_dir);
+      check_out_folder(out);
+      tf::study::compare_cases(cases, out, field_files, std::cout);
     });
 
   return guarded([&] {
@@ -178,11 +200,14 @@ int main(int argc, char** argv) {
     } else if (winding->parsed()) {
       tf::app::print_winding(c, as_json, std::cout);
     } else if (mesh->parsed()) {
-      tf::study::write_mesh(c, out_dir.empty() ? default_out_dir(case_path) / "mesh" : fs::path(out_dir), std::cout);
+      const fs::path out = out_dir.empty() ? default_out_dir(case_path) / "mesh" : fs::path(out_dir);
+      check_out_folder(out);
+      tf::study::write_mesh(c, out, std::cout);
     } else {
       tf::study::check_report_step(c, report_step);
       tf::study::RunOptions options{out_dir.empty() ? default_out_dir(case_path) : fs::path(out_dir), all_steps,
                                    report_step};
+      check_out_folder(options.out_dir);
       tf::study::run_study(c, options, std::cout);
     }
   });

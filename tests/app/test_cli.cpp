@@ -77,6 +77,21 @@ TEST_CASE("fuzz through the program: 60 mutated case files end with exit status 
   }
 }
 
+TEST_CASE("an output folder that cannot be written is refused before any work: exit 2 and the reason") {
+  const std::string demo = (fs::path(TF_SOURCE_DIR) / "cases" / "pump24_three_phase.toml").string();
+  const fs::path file = fresh_folder("out_is_a_file");
+  std::ofstream(file) << "not a folder\n";
+  for (const fs::path& out : {file, file / "below"}) {
+    for (const char* command : {"run", "mesh"}) {
+      INFO(command << " --out " << out.string());
+      const Outcome r = turnfield(std::string(command) + " " + demo + " --out " + out.string());
+      CHECK(r.status == 2);  // before this check: exit 1, after the whole solve
+      CHECK(r.output.find("is a file; expected a folder") != std::string::npos);
+    }
+  }
+  CHECK(fs::is_regular_file(file));
+}
+
 TEST_CASE("numeric options refuse NaN and infinity: exit 2, a message, nothing written") {
   const std::string demo = (fs::path(TF_SOURCE_DIR) / "cases" / "pump24_three_phase.toml").string();
   for (const char* value : {"nan", "inf", "-inf", "NaN"}) {
