@@ -9,6 +9,7 @@
 #include <nlohmann/json.hpp>
 
 #include "post/flux_density.hpp"
+#include "post/space_harmonics.hpp"
 #include "post/svg_plot.hpp"
 
 namespace tf::post {
@@ -241,6 +242,21 @@ void add_speeds(Page& page, std::vector<KeyValue>& head, const std::vector<Speed
                           svg::line_chart({"Rotor loss against rotor speed", {"rotor speed", "rad/s"}, {"rotor loss", "W"}, {l, lb}, {}})});
 }
 
+/// The space harmonics of a turning field at 0.5 % of the fundamental or more, in electrical orders.
+Table harmonic_table(const StudyResult& field, const RunRecord& r) {
+  Table t{"Space harmonics of B_r (electrical orders)",
+          {"order ν", "mechanical n", "amplitude [T]", "% of fundamental", "turns", "speed [rpm]", "winding factor"},
+          {},
+          "Mean over the steps of |c_n|; each order split by the temporal DFT into the waves turning forward "
+          "(counter-clockwise) and backward, 'pulsating' where neither is ten times the other; speed n_s/ν. "
+          "Orders under 0.5 % of the fundamental are in space_harmonics.csv only."};
+  for (const SpaceHarmonic& h : space_harmonics(field, *r.winding, r.frequency))
+    if (h.relative >= 0.005)
+      t.rows.push_back({num(h.electrical_order), std::to_string(h.order), num(h.amplitude), num(100 * h.relative, 3),
+                        direction(h), num(h.speed_rpm, 5), num(h.winding_factor)});
+  return t;
+}
+
 /// What the headline table says about how its numbers were found.
 std::string headline_note(const RunRecord& r) {
   std::string note;
@@ -271,6 +287,7 @@ Page study_page(const ReportContext& x, const RunRecord& r) {
   }
   if (r.eddy) add_speeds(page, rows, r.eddy->rows);
   page.sections.insert(page.sections.begin(), Section{"Headline numbers", rows, headline_note(r)});
+  if (r.field && r.field_rotates) page.tables.push_back(harmonic_table(*r.field, r));
   if (r.field) {
     const bool by_rotor = r.motion && r.rotor_turns;
     add_gap_figures(page, x, *r.field, by_rotor ? rotor_angles(*r.motion) : step_angles(*r.field),

@@ -7,6 +7,7 @@
 
 #include "post/eddy_output.hpp"
 #include "post/motion_output.hpp"
+#include "post/space_harmonics.hpp"
 #include "post/summary.hpp"
 #include "post/tables.hpp"
 
@@ -74,6 +75,11 @@ std::vector<std::string> write_result_tables(const std::filesystem::path& dir, c
     write_harmonics_table(dir / "harmonics.csv", *r.field, r.winding->spec.pole_pairs());
     write_poles_table(dir / "poles.csv", *r.field);
     files = {"steps.csv", "gap_field.csv", "harmonics.csv", "poles.csv"};
+    // The steps of a turning field cover one electrical period: each order splits into its waves.
+    if (r.field_rotates) {
+      write_space_harmonics(dir / "space_harmonics.csv", space_harmonics(*r.field, *r.winding, r.frequency));
+      files.push_back("space_harmonics.csv");
+    }
   }
   write_winding_tables(dir, *r.winding, 13);
   files.insert(files.end(), {"winding.csv", "winding_factors.csv"});
