@@ -2,9 +2,6 @@
 // Files of an eddy-current study: torque_speed.csv and a VTU file per speed.
 
 #include <filesystem>
-#include <optional>
-#include <string>
-#include <utility>
 #include <vector>
 
 #include <Eigen/Core>
@@ -12,7 +9,6 @@
 #include "mesh/mesh.hpp"
 #include "mesh/winding.hpp"
 #include "post/eddy_quantities.hpp"
-
 
 namespace tf::post {
 

@@ -23,6 +23,12 @@ const std::vector<std::string>& metric_pointers() {
   return p;
 }
 
+/// "name:direction" as its two parts (direction empty when not given).
+std::pair<std::string, std::string> split_spec(const std::string& spec) {
+  const auto colon = spec.find(':');
+  return {spec.substr(0, colon), colon == std::string::npos ? "" : spec.substr(colon + 1)};
+}
+
 }  // namespace
 
 std::vector<post::MetricColumn> sweep_metric_columns() {
@@ -48,8 +54,7 @@ std::vector<double> read_metrics(const std::string& summary_json) {
 }
 
 std::optional<RankProblem> rank_problem(const std::string& spec) {
-  const auto colon = spec.find(':');
-  const std::string name = spec.substr(0, colon), direction = colon == std::string::npos ? "" : spec.substr(colon + 1);
+  const auto [name, direction] = split_spec(spec);
   std::vector<std::string> keys;
   for (const auto& m : sweep_metric_columns()) keys.push_back(m.key);
   if (std::find(keys.begin(), keys.end(), name) == keys.end())
@@ -62,8 +67,7 @@ std::optional<RankProblem> rank_problem(const std::string& spec) {
 void rank_rows(post::SweepTable& t, const std::string& spec) {
   if (const auto p = rank_problem(spec))
     throw input::InputError(fmt::format("rank by '{}': {}; expected {}", spec, p->what, p->expected));
-  const auto colon = spec.find(':');
-  const std::string name = spec.substr(0, colon), direction = colon == std::string::npos ? "" : spec.substr(colon + 1);
+  const auto [name, direction] = split_spec(spec);
   std::vector<std::string> keys;
   for (const auto& m : t.metrics) keys.push_back(m.key);
   const auto it = std::find(keys.begin(), keys.end(), name);

@@ -7,8 +7,9 @@
 #include <numbers>
 #include <string>
 
-#include "support/winding_spec.hpp"
 #include "input/case_validation.hpp"
+#include "support/sample_geometry.hpp"
+#include "support/winding_spec.hpp"
 
 namespace {
 
@@ -16,32 +17,8 @@ using tf::input::geometry_problem;
 using tf::input::tooth_width;
 using tf::input::winding_problem;
 
-/// The 36-slot open-slot stator of cases/stator36_three_phase.toml.
-tf::mesh::Geometry open_slot_stator() {
-  tf::mesh::Geometry g;
-  g.stator.bore_radius = 0.060;
-  g.stator.outer_radius = 0.100;
-  g.stator.n_positions = 36;
-  g.stator.slot = {.shape = tf::mesh::SlotShape::open, .width = 0.005, .depth = 0.018};
-  g.rotor = {.kind = tf::mesh::RotorKind::iron, .outer_radius = 0.0595, .shaft_radius = 0.020};
-  return g;
-}
-
-/// The 24-slot semi-closed stator of cases/pump24_three_phase.toml.
-tf::mesh::Geometry semi_closed_stator() {
-  tf::mesh::Geometry g = open_slot_stator();
-  g.stator.bore_radius = 0.050;
-  g.stator.outer_radius = 0.085;
-  g.stator.n_positions = 24;
-  g.stator.slot = {.shape = tf::mesh::SlotShape::semi_closed,
-                   .width = 0.007,
-                   .depth = 0.016,
-                   .opening_width = 0.0025,
-                   .tip_height = 0.0008,
-                   .wedge_height = 0.0007};
-  g.rotor.outer_radius = 0.0496;
-  return g;
-}
+using tf::testing::open_slot_stator;    // the 36-slot stator of cases/stator36_three_phase.toml
+using tf::testing::semi_closed_stator;  // the 24-slot stator of cases/pump24_three_phase.toml
 
 tf::mesh::WindingSpec winding(int phases, int poles, int layers, int pitch, int paths = 1) {
   tf::mesh::WindingSpec w = tf::testing::winding_spec(phases, poles, layers, pitch, 1);
