@@ -29,6 +29,9 @@ enum class RegionKind {
   magnet,        ///< one permanent magnet of a surface-magnet rotor; slot = its pole number
   rotor_air,     ///< air in the rotor: between surface magnets, or a rotor bar's slot opening
   rotor_bar,     ///< one bar of a squirrel-cage rotor; slot = its bar number
+  /// The Kelvin image of the air beyond the boundary radius (an open boundary): a disc drawn
+  /// beside the machine whose rim is tied to the boundary circle. Not part of the cross-section.
+  exterior_image,
 };
 
 struct Region {

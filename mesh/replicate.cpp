@@ -113,6 +113,7 @@ std::string region_name(StatorKind stator, const PieceKind& kind, bool rotor_sid
     case RegionKind::rotor_sleeve: return "rotor_sleeve";
     case RegionKind::bore_air: return "bore_air";
     case RegionKind::outer_air: return "outer_air";
+    case RegionKind::exterior_image: return "exterior_image";
     case RegionKind::gap: return rotor_side ? "gap_rotor_side" : "gap_stator_side";
     // Shared slot air belongs to two neighbours: the air between two salient poles, or between two
     // conductor sectors of a slotless stator.

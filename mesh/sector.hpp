@@ -47,6 +47,9 @@ SectorMesh mesh_stator_sector(const Geometry& g, const SlotLayers& layers, int n
 /// The Kelvin image of the air beyond the boundary circle (radius R = boundary_radius): the map
 /// r -> R^2 / r, theta -> theta turns the exterior into a disc of radius R, and, being conformal in
 /// 2D, leaves the weak form of the air's field unchanged; the disc's centre is infinity, where A = 0.
+/// (E. M. Freeman and D. A. Lowther, "A novel mapping technique for open boundary finite element
+/// solutions to Poisson's equation", IEEE Trans. Magnetics 24(6), 1988, pp. 2934-2936; from memory.)
+/// Its triangles form the region exterior_image, apart from the real air round the stator.
 /// One sector of the disc, its arc divided into n_outer_segments equal segments to match the stator's.
 SectorMesh mesh_exterior_image(const Geometry& g, int n_outer_segments, const SizeRule& size);
 

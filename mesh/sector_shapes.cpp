@@ -162,7 +162,7 @@ std::vector<Piece> build_stator_pieces(const Geometry& g, const SlotLayers& laye
 
 std::vector<Piece> build_image_pieces(const Geometry& g) {
   const double a = std::numbers::pi / g.stator.n_positions;
-  return {{add_annular_sector(0.0, g.stator.boundary_radius, -a, a), {RegionKind::outer_air, 0}}};
+  return {{add_annular_sector(0.0, g.stator.boundary_radius, -a, a), {RegionKind::exterior_image, 0}}};
 }
 
 std::vector<Piece> build_rotor_pieces(const Geometry& g, double a0, double a1) {

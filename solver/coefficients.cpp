@@ -21,6 +21,7 @@ double relative_permeability(Kind k, const Materials& mat) {
     case Kind::gap:
     case Kind::bore_air:
     case Kind::outer_air:
+    case Kind::exterior_image:  // the Kelvin map is conformal: the image holds air as it is
     case Kind::rotor_air:
     case Kind::rotor_bar: return 1.0;
   }

@@ -33,5 +33,15 @@ TEST_CASE("open boundary: the image disc's arc faces the boundary circle node by
     partners.insert(partner);
   }
   CHECK(partners.size() == m.ties.size());  // each boundary node once
+  // The disc is a region of its own, apart from the real air round the stator.
+  const int image = mesh::find_region(m, mesh::RegionKind::exterior_image);
+  REQUIRE(image >= 0);
+  CHECK(m.regions[image].name == "exterior_image");
+  for (const auto& [node, partner] : m.ties) CHECK(m.nodes.row(node).norm() > 1.5 * r);
+  for (int t = 0; t < m.n_triangles(); ++t) {
+    const bool in_image = m.triangle_region(t) == image;
+    const double x = (m.nodes(m.triangles(t, 0), 0) + m.nodes(m.triangles(t, 1), 0) + m.nodes(m.triangles(t, 2), 0)) / 3;
+    CHECK(in_image == (x > 1.5 * r));
+  }
   // (The unknowns of the ties: tests/solver/test_open_boundary.cpp.)
 }

@@ -10,34 +10,12 @@
 
 #include "mesh/build.hpp"
 #include "mesh/symmetry.hpp"
-#include "solver/assemble.hpp"
-#include "solver/coefficients.hpp"
-#include "solver/dofs.hpp"
-#include "solver/magnets.hpp"
-#include "solver/spd_solver.hpp"
 #include "support/sector_compare.hpp"
+#include "solver/dofs.hpp"
 #include "support/sector_machine.hpp"
 
 using namespace tf;
 
-namespace {
-
-/// Nodal A [Wb/m] of the linear field of magnets and phase currents [A] with the rotor turned by `shift`.
-Eigen::VectorXd linear_field(const mesh::Mesh& m, const mesh::Geometry& g, const mesh::Winding& w,
-                             const std::vector<double>& currents, int shift) {
-  const solver::Materials mat{.stator_iron_mu_r = 2000, .rotor_iron_mu_r = 2000};
-  const solver::DofMap d = solver::number_dofs(m, shift);
-  const auto K = solver::assemble_stiffness(m, d, solver::region_coefficients(m, mat).nu);
-  const Eigen::Map<const Eigen::VectorXd> i(currents.data(), 3);
-  const Eigen::VectorXd f =
-      solver::phase_loads(m, d, w) * i + solver::magnet_load(m, d, mat, solver::magnet_layout(g.rotor));
-  solver::SpdSolver spd;
-  spd.analyse(K);
-  spd.factorize(K);
-  return solver::to_nodes(d, spd.solve(f)).col(0);
-}
-
-}  // namespace
 
 TEST_CASE("sector model, linear iron: gap field, torque and flux linkage of the full machine") {
   const mesh::Geometry g = testing::magnet_machine();
@@ -49,8 +27,8 @@ TEST_CASE("sector model, linear iron: gap field, torque and flux linkage of the 
   // Shifts: none; a few pitches (the last rotor nodes wrap once, with a sign flip); more than a
   // whole sector (every node wraps once, some twice); and backwards.
   for (int shift : {0, 5, n_sector + 7, -3}) {
-    const auto q_full = testing::machine_quantities(full, w, linear_field(full, g, w, currents, shift), shift);
-    const auto q_sector = testing::machine_quantities(sector, w, linear_field(sector, g, w, currents, shift), shift);
+    const auto q_full = testing::machine_quantities(full, w, testing::linear_field(full, g, w, currents, shift), shift);
+    const auto q_sector = testing::machine_quantities(sector, w, testing::linear_field(sector, g, w, currents, shift), shift);
     const testing::Differences d = testing::differences(q_sector, q_full);
     MESSAGE("shift " << shift << ": full |c_2| " << std::abs(q_full.fundamental) << " T, torque " << q_full.torque
                      << " N m/m, psi_A " << q_full.psi(0) << " Wb/m; sector relative differences: B_r " << d.br

@@ -14,6 +14,11 @@
 #include "mesh/geometry.hpp"
 #include "mesh/symmetry.hpp"
 #include "mesh/winding.hpp"
+#include "solver/assemble.hpp"
+#include "solver/coefficients.hpp"
+#include "solver/dofs.hpp"
+#include "solver/magnets.hpp"
+#include "solver/spd_solver.hpp"
 #include "support/sample_geometry.hpp"
 #include "support/winding_spec.hpp"
 
@@ -51,6 +56,22 @@ inline std::vector<double> three_phase_currents(double peak, double wt) {
   std::vector<double> i;
   for (int k = 0; k < 3; ++k) i.push_back(peak * std::cos(wt - 2 * std::numbers::pi * k / 3));
   return i;
+}
+
+/// Nodal A [Wb/m] of the linear field (iron mu_r 2000) of magnets and phase currents [A] with the
+/// rotor turned by `shift` sliding-circle pitches.
+inline Eigen::VectorXd linear_field(const mesh::Mesh& m, const mesh::Geometry& g, const mesh::Winding& w,
+                                    const std::vector<double>& currents, int shift) {
+  const solver::Materials mat{.stator_iron_mu_r = 2000, .rotor_iron_mu_r = 2000};
+  const solver::DofMap d = solver::number_dofs(m, shift);
+  const auto K = solver::assemble_stiffness(m, d, solver::region_coefficients(m, mat).nu);
+  const Eigen::Map<const Eigen::VectorXd> i(currents.data(), static_cast<Eigen::Index>(currents.size()));
+  const Eigen::VectorXd f =
+      solver::phase_loads(m, d, w) * i + solver::magnet_load(m, d, mat, solver::magnet_layout(g.rotor));
+  solver::SpdSolver spd;
+  spd.analyse(K);
+  spd.factorize(K);
+  return solver::to_nodes(d, spd.solve(f)).col(0);
 }
 
 }  // namespace tf::testing
