@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <filesystem>
+#include <memory>
 #include <numbers>
 
 #include <fmt/format.h>
@@ -195,22 +196,45 @@ mesh::MeshControls read_mesh(const Fields& root, bool& full_model) {
   return m;
 }
 
+/// Runs the reader of one part of the case. When the document collects its errors, a problem that
+/// stops the part is noted and the part keeps what it had; returns whether the part was read
+/// without a problem. Parts that build on a part with problems are skipped: its stand-in values
+/// would only make up problems of their own.
+template <class Read>
+bool read_part(const Document& doc, Read read) {
+  if (!doc.errors) {
+    read();
+    return true;
+  }
+  const std::size_t before = doc.errors->size();
+  try {
+    read();
+  } catch (const InputError& e) {
+    doc.errors->note(e);
+  } catch (const Unreported&) {
+    return false;
+  }
+  return doc.errors->size() == before;
+}
+
 Case read_fields(const Document& doc) {
   const Fields root(
       doc, {"title", "machine", "stator", "rotor", "materials", "winding", "supply", "study", "mesh"});
   Case c;
   c.path = doc.path;
-  c.title = root.text_or("title", std::filesystem::path(doc.path).stem().string());
-  c.stack_length = root.table("machine", {"stack_length"})
-                       .real("stack_length", {.min = 0, .max = 10, .min_excluded = true, .unit = "m"});
-  c.geometry.stator = read_stator(root);
-  c.geometry.rotor = read_rotor(root);
-  c.end_rings = read_end_rings(root);
-  c.materials = read_materials(root, c.geometry.rotor);
-  c.winding = read_winding(root, c.geometry.stator);
-  c.supply = read_supply(root, c.winding.n_phases);
-  c.study = read_study(root, c.supply);
-  c.mesh = read_mesh(root, c.full_model);
+  read_part(doc, [&] {
+    c.title = root.text_or("title", std::filesystem::path(doc.path).stem().string());
+    c.stack_length = root.table("machine", {"stack_length"})
+                         .real("stack_length", {.min = 0, .max = 10, .min_excluded = true, .unit = "m"});
+  });
+  const bool stator = read_part(doc, [&] { c.geometry.stator = read_stator(root); });
+  const bool rotor = read_part(doc, [&] { c.geometry.rotor = read_rotor(root); });
+  read_part(doc, [&] { c.end_rings = read_end_rings(root); });
+  if (rotor) read_part(doc, [&] { c.materials = read_materials(root, c.geometry.rotor); });
+  const bool winding = stator && read_part(doc, [&] { c.winding = read_winding(root, c.geometry.stator); });
+  const bool supply = winding && read_part(doc, [&] { c.supply = read_supply(root, c.winding.n_phases); });
+  if (supply) read_part(doc, [&] { c.study = read_study(root, c.supply); });
+  read_part(doc, [&] { c.mesh = read_mesh(root, c.full_model); });
   return c;
 }
 
@@ -219,10 +243,19 @@ Case read_fields(const Document& doc) {
 Case read_case(const std::string& path) { return read_case_text(path, read_input_file(path, "case file")); }
 
 Case read_case_text(const std::string& path, const std::string& text) {
-  const Document doc = parse_document(path, text);
+  Document doc = parse_document(path, text);  // a TOML syntax error stops here, as the parser does
+  doc.errors = std::make_shared<ErrorLog>();
   Case c = read_fields(doc);
   // Consistency across keys only once every key has been read in range.
-  if (const auto p = case_problem(c)) fail_at_key(doc, p->key, p->what, p->expected);
+  if (doc.errors->empty())
+    for (const Problem& p : case_problems(c)) {
+      try {
+        fail_at_key(doc, p.key, p.what, p.expected);
+      } catch (const InputError& e) {
+        doc.errors->note(e);
+      }
+    }
+  if (!doc.errors->empty()) doc.errors->raise(path);
   return c;
 }
 

@@ -517,14 +517,27 @@ std::optional<Problem> mesh_size_problem(const Case& c) {
                              1e3 * w * scale, mesh::kMostTriangles / 1e6)};
 }
 
+std::vector<Problem> case_problems(const Case& c) {
+  std::vector<Problem> found;
+  const auto add = [&](std::optional<Problem> p) {
+    if (p) found.push_back(std::move(*p));
+  };
+  const std::optional<Problem> geometry = geometry_problem(c.geometry);
+  add(geometry);
+  add(winding_problem(c.winding, c.geometry.stator));
+  add(motion_problem(c));
+  add(supply_problem(c));
+  add(conductor_problem(c));
+  // The mesh's size follows from a geometry that holds together; a broken one would only add noise.
+  if (!geometry) add(mesh_size_problem(c));
+  add(study_problem(c.study));
+  return found;
+}
+
 std::optional<Problem> case_problem(const Case& c) {
-  if (auto p = geometry_problem(c.geometry)) return p;
-  if (auto p = winding_problem(c.winding, c.geometry.stator)) return p;
-  if (auto p = motion_problem(c)) return p;
-  if (auto p = supply_problem(c)) return p;
-  if (auto p = conductor_problem(c)) return p;
-  if (auto p = mesh_size_problem(c)) return p;
-  return study_problem(c.study);
+  std::vector<Problem> found = case_problems(c);
+  if (found.empty()) return std::nullopt;
+  return found.front();
 }
 
 }  // namespace tf::input

@@ -10,6 +10,7 @@
 
 #include <optional>
 #include <string>
+#include <vector>
 
 #include "input/case.hpp"
 #include "mesh/geometry.hpp"
@@ -32,7 +33,11 @@ std::optional<Problem> winding_problem(const mesh::WindingSpec& winding, const m
 
 std::optional<Problem> study_problem(const StudyPlan& study);
 
-/// All of the above, in the order of the case file.
+/// The first problem of each group of checks (geometry, winding, rotor motion, supply, conductors,
+/// mesh size, study), in the order of the case file.
+std::vector<Problem> case_problems(const Case& c);
+
+/// The first of case_problems, or nothing.
 std::optional<Problem> case_problem(const Case& c);
 
 /// Width [m] of the tooth between two neighbouring parallel-sided slots of width `slot_width` [m],

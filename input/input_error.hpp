@@ -5,11 +5,13 @@
 // as it is and exits with status 2.
 
 #include <stdexcept>
+#include <string>
 
 namespace tf::input {
 
 struct InputError : std::runtime_error {
-  using std::runtime_error::runtime_error;
+  explicit InputError(const std::string& what, int line = 0) : std::runtime_error(what), line(line) {}
+  int line = 0;  ///< the line of the file the message names; 0 when it names none
 };
 
 }  // namespace tf::input

@@ -176,7 +176,63 @@ void fail(const Document& doc, int line, std::string_view subject, std::string_v
   if (!subject.empty()) message += fmt::format("{}: ", subject);
   message += problem;
   if (!expected.empty()) message += fmt::format("; expected {}", expected);
-  throw InputError(message);
+  throw InputError(message, line);
+}
+
+void ErrorLog::note(const InputError& e) {
+  for (const Entry& seen : entries_)
+    if (e.line > 0 && seen.line == e.line) return;
+  entries_.push_back({e.line, e.what()});
+}
+
+void ErrorLog::raise(const std::string& path) const {
+  assert(!entries_.empty());
+  std::vector<Entry> sorted = entries_;
+  std::stable_sort(sorted.begin(), sorted.end(), [](const Entry& a, const Entry& b) { return a.line < b.line; });
+  if (sorted.size() == 1) throw InputError(sorted[0].message, sorted[0].line);
+  std::string message;
+  for (std::size_t i = 0; i < std::min(sorted.size(), kMostListed); ++i) message += sorted[i].message + "\n";
+  message += fmt::format("{} problems in {}", sorted.size(), path);
+  if (sorted.size() > kMostListed) message += fmt::format(" (the first {} listed)", kMostListed);
+  throw InputError(message, sorted[0].line);
+}
+
+namespace {
+
+/// A value within `range`, for a key whose own value was wrong: reading goes on to find the file's
+/// other problems, and the checks across keys are skipped.
+double stand_in(const RealRange& r) {
+  double v = 0.0;
+  if (std::isfinite(r.min)) v = !r.min_excluded ? r.min : std::isfinite(r.max) ? 0.5 * (r.min + r.max) : r.min + 1.0;
+  else if (std::isfinite(r.max)) v = r.max_excluded ? r.max - 1.0 : r.max;
+  return v != 0.0 && std::abs(v) < r.smallest ? std::copysign(r.smallest, v) : v;
+}
+
+int stand_in(const IntRange& r) { return static_cast<int>(std::clamp<long long>(0, r.min, r.max)); }
+
+const toml::table& empty_table() {
+  static const toml::table empty;
+  return empty;
+}
+
+const toml::array& empty_array() {
+  static const toml::array empty;
+  return empty;
+}
+
+}  // namespace
+
+template <class T, class Read>
+T Fields::recovered(T stand_in_value, Read read) const {
+  if (absent_ || quiet_) return stand_in_value;
+  if (!doc_->errors) return read();
+  try {
+    return read();
+  } catch (const InputError& e) {
+    doc_->errors->note(e);
+  } catch (const Unreported&) {
+  }
+  return stand_in_value;
 }
 
 void fail_at_key(const Document& doc, std::string_view dotted_key, std::string_view problem,
@@ -201,8 +257,9 @@ void fail_at_key(const Document& doc, std::string_view dotted_key, std::string_v
 Fields::Fields(const Document& doc, std::vector<std::string> keys)
     : Fields(doc, doc.root, "", std::move(keys)) {}
 
-Fields::Fields(const Document& doc, const toml::table& table, std::string name, std::vector<std::string> keys)
-    : doc_(&doc), table_(&table), name_(std::move(name)), keys_(std::move(keys)) {
+Fields::Fields(const Document& doc, const toml::table& table, std::string name, std::vector<std::string> keys,
+               bool absent)
+    : doc_(&doc), table_(&table), name_(std::move(name)), keys_(std::move(keys)), absent_(absent) {
   check_unknown_keys();
 }
 
@@ -210,22 +267,27 @@ int Fields::line() const { return line_of(*table_); }
 
 bool Fields::has(std::string_view key) const {
   check_declared(key);
-  return table_->contains(key);
+  return !absent_ && table_->contains(key);
 }
 
-void Fields::check_unknown_keys() const {
-  // Report the unknown key that comes first in the file, so fixes can go from top to bottom.
-  const toml::key* unknown = nullptr;
-  const toml::node* unknown_node = nullptr;
-  for (auto&& [key, node] : *table_) {
-    if (std::find(keys_.begin(), keys_.end(), key.str()) != keys_.end()) continue;
-    if (!unknown || line_of(node) < line_of(*unknown_node)) {
-      unknown = &key;
-      unknown_node = &node;
-    }
+void Fields::check_unknown_keys() {
+  // Report the unknown key that comes first in the file, so fixes can go from top to bottom; when
+  // the document collects its errors, every one of them.
+  std::vector<std::pair<std::string, const toml::node*>> unknown;
+  for (auto&& [key, node] : *table_)
+    if (std::find(keys_.begin(), keys_.end(), key.str()) == keys_.end()) unknown.emplace_back(key.str(), &node);
+  std::stable_sort(unknown.begin(), unknown.end(),
+                   [](const auto& a, const auto& b) { return line_of(*a.second) < line_of(*b.second); });
+  has_unknown_ = !unknown.empty();
+  for (const auto& [word, node] : unknown) {
+    const InputError e = unknown_key(word, *node);
+    if (!doc_->errors) throw e;
+    doc_->errors->note(e);
   }
-  if (!unknown) return;
-  const std::string word(unknown->str());
+}
+
+InputError Fields::unknown_key(const std::string& word, const toml::node& node) const {
+  const toml::node* unknown_node = &node;
   const std::string guess = nearest(word, keys_, last_part(name_));
   std::string message = fmt::format("{}:{}: ", doc_->path, line_of(*unknown_node));
   if (unknown_node->is_table()) {
@@ -236,17 +298,23 @@ void Fields::check_unknown_keys() const {
     if (!guess.empty()) message += fmt::format("; did you mean '{}'?", guess);
   }
   if (guess.empty()) message += fmt::format("\n  expected one of: {}", join(keys_, ", "));
-  throw InputError(message);
+  return InputError(message, line_of(*unknown_node));
 }
 
 Fields Fields::table(std::string_view key, std::vector<std::string> keys) const {
   check_declared(key);
   const toml::node* node = table_->get(key);
-  if (!node)
-    input::fail(*doc_, line(), "", fmt::format("missing table [{}]", child_name(key)),
-              fmt::format("a table with the keys {}", join(keys, ", ")));
-  if (!node->is_table()) fail(key, "found " + type_name(*node), fmt::format("a table [{}]", child_name(key)));
-  return Fields(*doc_, *node->as_table(), child_name(key), std::move(keys));
+  const bool fits = node && node->is_table();
+  const Fields stand_in_fields(*doc_, empty_table(), child_name(key), keys, true);
+  if (absent_) return stand_in_fields;
+  return recovered(stand_in_fields, [&] {
+    if (!node && has_unknown_ && doc_->errors) throw Unreported{};  // the misspelt table is blamed
+    if (!node)
+      input::fail(*doc_, line(), "", fmt::format("missing table [{}]", child_name(key)),
+                  fmt::format("a table with the keys {}", join(keys, ", ")));
+    if (!fits) fail(key, "found " + type_name(*node), fmt::format("a table [{}]", child_name(key)));
+    return Fields(*doc_, *node->as_table(), child_name(key), keys);
+  });
 }
 
 std::optional<Fields> Fields::optional_table(std::string_view key, std::vector<std::string> keys) const {
@@ -257,16 +325,19 @@ std::optional<Fields> Fields::optional_table(std::string_view key, std::vector<s
 const toml::node& Fields::required(std::string_view key, std::string_view expected) const {
   check_declared(key);
   const toml::node* node = table_->get(key);
+  if (!node && has_unknown_ && doc_->errors) throw Unreported{};  // the misspelt key is blamed
   if (!node)
     input::fail(*doc_, line(), "", fmt::format("{}missing key '{}'", table_prefix(name_), key), expected);
   return *node;
 }
 
 const toml::array& Fields::array(std::string_view key, std::string_view expected) const {
-  const toml::node& node = required(key, expected);
-  const auto* a = node.as_array();
-  if (!a) fail(key, "found " + type_name(node), expected);
-  return *a;
+  return *recovered(&empty_array(), [&] {
+    const toml::node& node = required(key, expected);
+    const auto* a = node.as_array();
+    if (!a) fail(key, "found " + type_name(node), expected);
+    return a;
+  });
 }
 
 void Fields::fail_at(const toml::node& node, std::string_view key, std::string_view index, std::string_view problem,
@@ -290,6 +361,10 @@ bool within(double v, const RealRange& range) {
 }
 
 double Fields::real(std::string_view key, const RealRange& range) const {
+  return recovered(stand_in(range), [&] { return strict_real(key, range); });
+}
+
+double Fields::strict_real(std::string_view key, const RealRange& range) const {
   const std::string expected = describe(range);
   const toml::node& node = required(key, expected);
   const std::optional<double> value = number_value(node);
@@ -312,6 +387,10 @@ double Fields::real_or(std::string_view key, double fallback, const RealRange& r
 }
 
 int Fields::integer(std::string_view key, const IntRange& range) const {
+  return recovered(stand_in(range), [&] { return strict_integer(key, range); });
+}
+
+int Fields::strict_integer(std::string_view key, const IntRange& range) const {
   assert(range.min >= std::numeric_limits<int>::min() && range.max <= std::numeric_limits<int>::max());
   const std::string expected = describe(range);
   const toml::node& node = required(key, expected);
@@ -332,21 +411,33 @@ int Fields::integer_or(std::string_view key, int fallback, const IntRange& range
 
 std::string Fields::text_or(std::string_view key, std::string fallback) const {
   if (!has(key)) return fallback;
-  const toml::node& node = *table_->get(key);
-  const auto* s = node.as_string();
-  if (!s) fail(key, "found " + type_name(node), "a string in double quotes");
-  return s->get();
+  return recovered(fallback, [&] {
+    const toml::node& node = *table_->get(key);
+    const auto* s = node.as_string();
+    if (!s) fail(key, "found " + type_name(node), "a string in double quotes");
+    return s->get();
+  });
 }
 
 bool Fields::boolean_or(std::string_view key, bool fallback) const {
   if (!has(key)) return fallback;
-  const toml::node& node = *table_->get(key);
-  const auto* b = node.as_boolean();
-  if (!b) fail(key, "found " + type_name(node), "true or false (without quotes)");
-  return b->get();
+  return recovered(fallback, [&] {
+    const toml::node& node = *table_->get(key);
+    const auto* b = node.as_boolean();
+    if (!b) fail(key, "found " + type_name(node), "true or false (without quotes)");
+    return b->get();
+  });
 }
 
 std::size_t Fields::choice(std::string_view key, const std::vector<std::string>& choices) const {
+  const std::size_t noted = doc_->errors ? doc_->errors->size() : 0;
+  const std::size_t index = recovered(std::size_t{0}, [&] { return strict_choice(key, choices); });
+  // The choice decides which keys the table may hold: read with a stand-in, the rest would be blamed wrongly.
+  if (doc_->errors && doc_->errors->size() > noted) quiet_ = true;
+  return index;
+}
+
+std::size_t Fields::strict_choice(std::string_view key, const std::vector<std::string>& choices) const {
   std::vector<std::string> shown;
   for (const std::string& c : choices) shown.push_back(toml_quoted(c));
   const std::string expected = join_or(shown);
@@ -368,10 +459,14 @@ std::size_t Fields::choice_or(std::string_view key, const std::vector<std::strin
 }
 
 void Fields::reject(std::string_view key, std::string_view problem, std::string_view expected) const {
-  if (has(key)) fail(key, problem, expected);
+  recovered(0, [&] {
+    if (has(key)) fail(key, problem, expected);
+    return 0;
+  });
 }
 
 void Fields::fail(std::string_view key, std::string_view problem, std::string_view expected) const {
+  if (quiet_ && doc_->errors) throw Unreported{};
   const toml::node* node = table_->get(key);
   input::fail(*doc_, node ? line_of(*node) : line(), subject(key), problem, expected);
 }

@@ -9,6 +9,7 @@
 
 #include <cstddef>
 #include <limits>
+#include <memory>
 #include <optional>
 #include <string>
 #include <string_view>
@@ -16,12 +17,42 @@
 
 #include <toml++/toml.h>
 
+#include "input/input_error.hpp"
+
 namespace tf::input {
 
+/// The problems found while a whole case file is read, so that one pass reports them all (up to
+/// kMostListed) instead of one per run. One problem per line: a key whose value is wrong once is
+/// not blamed again by the checks that read its stand-in.
+class ErrorLog {
+ public:
+  static constexpr std::size_t kMostListed = 20;
+  void note(const InputError& e);
+  bool empty() const { return entries_.empty(); }
+  std::size_t size() const { return entries_.size(); }
+  /// Throws one InputError listing them in line order (a single problem's message unchanged).
+  [[noreturn]] void raise(const std::string& path) const;
+
+ private:
+  struct Entry {
+    int line;
+    std::string message;
+  };
+  std::vector<Entry> entries_;
+};
+
+/// Thrown, only while a document collects its errors, for a problem that follows from one already
+/// noted (a key missed in a table that holds a misspelt one; a key read after the table's choice
+/// had to be stood in for). Whoever reads a part of the case stops there without a word.
+struct Unreported {};
+
 /// A parsed case file: the path exactly as the user gave it, and the tree, which keeps line numbers.
+/// With `errors`, the Fields of the document note a wrong value there and go on with a stand-in
+/// value in its range (or the key's default) instead of throwing.
 struct Document {
   std::string path;
   toml::table root;
+  std::shared_ptr<ErrorLog> errors = {};
 };
 
 /// The text of a file the user named; `kind` ("case file", "sweep file") words the messages.
@@ -127,10 +158,12 @@ class Fields {
   [[noreturn]] void fail_at(const toml::node& node, std::string_view key, std::string_view index,
                             std::string_view problem, std::string_view expected) const;
 
-  /// Fails if `key` is present: used for keys that another setting makes meaningless.
+  /// Fails if `key` is present: used for keys that another setting makes meaningless (noted, and
+  /// reading goes on, when the document collects its errors).
   void reject(std::string_view key, std::string_view problem, std::string_view expected) const;
 
-  /// Throws InputError at the key's line (or the table's line if the key is absent).
+  /// Throws InputError at the key's line (or the table's line if the key is absent). Always throws:
+  /// the reader of a part of the case stops there (case_reader.cpp notes it and reads on).
   [[noreturn]] void fail(std::string_view key, std::string_view problem, std::string_view expected) const;
 
   /// Dotted name of this table ("stator.slot"); empty for the top level.
@@ -139,8 +172,17 @@ class Fields {
   int line() const;
 
  private:
-  Fields(const Document& doc, const toml::table& table, std::string name, std::vector<std::string> keys);
-  void check_unknown_keys() const;
+  Fields(const Document& doc, const toml::table& table, std::string name, std::vector<std::string> keys,
+         bool absent = false);
+  void check_unknown_keys();
+  InputError unknown_key(const std::string& word, const toml::node& node) const;
+  double strict_real(std::string_view key, const RealRange& range) const;
+  int strict_integer(std::string_view key, const IntRange& range) const;
+  std::size_t strict_choice(std::string_view key, const std::vector<std::string>& choices) const;
+  /// `read()`, or, when the document collects its errors, `stand_in` after noting what read() threw.
+  /// A table that was missing or wrong gives stand-ins without a word: it was blamed once already.
+  template <class T, class Read>
+  T recovered(T stand_in, Read read) const;
   const toml::node& required(std::string_view key, std::string_view expected) const;
   std::string child_name(std::string_view key) const;
   std::string subject(std::string_view key) const;
@@ -150,6 +192,10 @@ class Fields {
   const toml::table* table_;
   std::string name_;
   std::vector<std::string> keys_;
+  bool absent_ = false;       ///< stands in for a table that is missing or not a table
+  bool has_unknown_ = false;  ///< holds a key not in keys_ (a misspelling of a key it misses)
+  /// A choice of this table (which decides the keys it may hold) was wrong: the rest is not read.
+  mutable bool quiet_ = false;
 };
 
 }  // namespace tf::input

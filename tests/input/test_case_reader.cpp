@@ -6,6 +6,7 @@
 #include <cmath>
 #include <filesystem>
 #include <fstream>
+#include <iterator>
 #include <numbers>
 #include <set>
 #include <string>
@@ -19,6 +20,7 @@ namespace {
 namespace fs = std::filesystem;
 using tf::input::InputError;
 using tf::input::read_case;
+using tf::input::read_case_text;
 
 const std::string source_dir = TF_SOURCE_DIR;
 const std::string bad_dir = source_dir + "/tests/data/bad/";
@@ -34,6 +36,11 @@ std::string error_of(const std::string& path) {
 }
 
 bool contains(const std::string& text, const std::string& part) { return text.find(part) != std::string::npos; }
+
+std::string read_text(const std::string& path) {
+  std::ifstream in(path);
+  return {std::istreambuf_iterator<char>(in), std::istreambuf_iterator<char>()};
+}
 
 struct BadFile {
   std::string name;
@@ -77,6 +84,7 @@ const std::vector<BadFile> bad_files = {
      {"[rotor.bars] width = 0.008", "the bars touch at their bottom, where the bar pitch is 7.71 mm",
       "expected a width below 7.71 mm"}},
     {"bad_unknown_key.toml", 17, {"[stator.slot] unknown key 'slot_widht'", "did you mean 'width'?"}},
+    {"bad_several_problems.toml", 10, {"[machine] stack_length = -0.06", "6 problems in"}},
     {"bad_unknown_key_no_guess.toml", 23, {"[rotor] unknown key 'colour'", "one of: kind, outer_radius, shaft_radius"}},
     {"bad_unknown_table.toml", 41, {"unknown table [suply]", "did you mean [supply]?"}},
     {"bad_missing_key.toml", 14, {"[stator.slot] missing key 'depth'", "expected a number in m, > 0"}},
@@ -395,10 +403,62 @@ TEST_CASE("every bad case file is refused at the right line, naming key, problem
     const std::string path = bad_dir + bad.name;
     const std::string message = error_of(path);
     CAPTURE(message);
-    // The message opens with the path exactly as given and the line.
-    CHECK(message.rfind(path + ":" + std::to_string(bad.line) + ": ", 0) == 0);
+    // The message opens with the path exactly as given and the line of the first problem; a file
+    // that is wrong in more places than the one it shows lists those too, a line each.
+    const std::string at = path + ":" + std::to_string(bad.line) + ": ";
+    CHECK((message.rfind(at, 0) == 0 || contains(message, "\n" + at)));
     for (const std::string& part : bad.parts) CHECK(contains(message, part));
   }
+}
+
+TEST_CASE("every problem of a case file in one pass, in line order, and nothing that follows from them") {
+  const std::string path = bad_dir + "bad_several_problems.toml";
+  const std::string message = error_of(path);
+  CAPTURE(message);
+  std::vector<std::string> lines;
+  for (std::size_t start = 0; start < message.size();) {
+    const std::size_t end = std::min(message.find('\n', start), message.size());
+    lines.push_back(message.substr(start, end - start));
+    start = end + 1;
+  }
+  REQUIRE(lines.size() == 7);
+  const std::vector<std::pair<int, std::string>> expected{
+      {10, "[machine] stack_length = -0.06: out of range"},
+      {19, "[stator.slot] unknown key 'slot_widht'; did you mean 'width'?"},
+      {20, "[stator.slot] depth = \"16 mm\": found a string"},
+      {26, "[rotor] kind = \"irn\": not one of the choices (did you mean \"iron\"?)"},
+      {51, "unknown table [studdy]; did you mean [study]?"},
+      {58, "[mesh] fineness = 99.0: out of range"}};
+  for (std::size_t i = 0; i < expected.size(); ++i) {
+    CAPTURE(i);
+    CHECK(lines[i].rfind(path + ":" + std::to_string(expected[i].first) + ": " + expected[i].second, 0) == 0);
+  }
+  CHECK(lines.back() == "6 problems in " + path);
+  CHECK_FALSE(contains(message, "missing"));
+}
+
+TEST_CASE("a file with more than 20 problems lists the first 20 and says how many there are") {
+  std::string text = read_text(source_dir + "/cases/pump24_three_phase.toml");
+  std::string extra;
+  for (int k = 1; k <= 25; ++k) extra += "extra_key_" + std::to_string(k) + " = 1\n";
+  const std::size_t at = text.find("[machine]\n");
+  REQUIRE(at != std::string::npos);
+  text.insert(at + std::string("[machine]\n").size(), extra);
+  std::string message;
+  try {
+    read_case_text("many.toml", text);
+  } catch (const InputError& e) {
+    message = e.what();
+  }
+  CAPTURE(message);
+  int listed = 0;
+  for (std::size_t p = message.find("[machine] unknown key"); p != std::string::npos;
+       p = message.find("[machine] unknown key", p + 1))
+    ++listed;
+  CHECK(listed == 20);
+  CHECK(contains(message, "extra_key_20"));
+  CHECK_FALSE(contains(message, "extra_key_21"));
+  CHECK(contains(message, "25 problems in many.toml (the first 20 listed)"));
 }
 
 TEST_CASE("a misspelt key is reported as unknown before the key it replaced is missed") {
