@@ -17,6 +17,8 @@
 #include <CLI/CLI.hpp>
 #include <unistd.h>
 
+#include "app/command_help.hpp"
+#include "app/geometry_report.hpp"
 #include "app/winding_report.hpp"
 #include "input/case_reader.hpp"
 #include "input/input_error.hpp"
@@ -105,7 +107,7 @@ int main(int argc, char** argv) {
   int steps = 0;          // 0: as the case file says
   int report_step = 0;
 
-  auto* check = cli.add_subcommand("check", "validate a case file without solving");
+  auto* check = cli.add_subcommand("check", "validate a case file without solving and print its derived geometry");
   check->add_option("CASE", case_path, "case file (TOML)")->required();
   auto* winding = cli.add_subcommand("winding", "print the slot table and winding factors");
   winding->add_option("CASE", case_path, "case file (TOML)")->required();
@@ -126,6 +128,7 @@ int main(int argc, char** argv) {
   run->add_option("--fineness", fineness, "override the case's mesh fineness")->check(kFinite & CLI::Range(0.1, 20.0));
   run->add_option("--steps", steps, "override the number of steps of a phase-angle or rotor-motion study")
       ->check(CLI::Range(2, 100000));
+  run->footer(tf::app::study_kinds_help());
   run->add_option("--report-step", report_step,
                   "step (eddy currents: speed number) whose cross-section report.html draws, from 0 (default 0)");
 
@@ -158,6 +161,7 @@ int main(int argc, char** argv) {
     cli.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
     const int code = cli.exit(e);
+    if (code != 0) std::cerr << tf::app::did_you_mean(cli, std::vector<std::string>(argv + 1, argv + argc));
     return code == 0 ? 0 : 2;
   }
 
@@ -197,6 +201,7 @@ int main(int argc, char** argv) {
     if (field_files >= 0) c.study.n_field_files = std::min(field_files, c.study.n_steps);
     if (check->parsed()) {
       std::cout << case_path << ": valid (" << c.title << ")\n";
+      tf::app::print_derived_geometry(c, std::cout);
     } else if (winding->parsed()) {
       tf::app::print_winding(c, as_json, std::cout);
     } else if (mesh->parsed()) {
