@@ -35,7 +35,7 @@ TimeHarmonicSystem assemble_time_harmonic(const mesh::Mesh& m, const mesh::Windi
 
 std::vector<Eigen::VectorXcd> solve_time_harmonic(const mesh::Mesh& m, const TimeHarmonicSystem& s,
                                                   const std::vector<TimeHarmonicProblem>& problems,
-                                                  TimeHarmonicStats& stats) {
+                                                  TimeHarmonicStats& stats, const std::function<void(int, int)>& solved) {
   require_full_model(m);
   using Complex = std::complex<double>;
   using Matrix = Eigen::SparseMatrix<Complex>;
@@ -50,6 +50,7 @@ std::vector<Eigen::VectorXcd> solve_time_harmonic(const mesh::Mesh& m, const Tim
         s.unit_loads.cast<Complex>() *
         Eigen::Map<const Eigen::VectorXcd>(p.currents.data(), Eigen::Index(p.currents.size()));
     out.push_back(complex_to_nodes(s.dofs, lu.solve(system, load, stats), m.n_nodes()));
+    if (solved) solved(static_cast<int>(out.size()), static_cast<int>(problems.size()));
   }
   return out;
 }

@@ -20,6 +20,7 @@
 // so assembly and solve refuse a mesh with m.symmetry.copies > 1.
 
 #include <complex>
+#include <functional>
 #include <vector>
 
 #include <Eigen/Core>
@@ -58,8 +59,10 @@ struct TimeHarmonicStats {
 
 /// A (#nodes, peak phasors [Wb/m]; 0 at fixed nodes) of each problem, in order; one symbolic
 /// analysis for all. Times are added to stats. Throws SolveError (a sector mesh, a failed factorization).
+/// `solved(k, n)`, if given, is told after each of the n problems (for a progress line).
 std::vector<Eigen::VectorXcd> solve_time_harmonic(const mesh::Mesh& m, const TimeHarmonicSystem& s,
                                                   const std::vector<TimeHarmonicProblem>& problems,
-                                                  TimeHarmonicStats& stats);
+                                                  TimeHarmonicStats& stats,
+                                                  const std::function<void(int, int)>& solved = {});
 
 }  // namespace tf::solver

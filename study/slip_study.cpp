@@ -21,7 +21,8 @@ solver::Cage cage_of(const input::Case& c) {
   return {bars.count, c.winding.pole_pairs(), bars.width * bars.depth, c.materials.bar_sigma, c.stack_length};
 }
 
-SlipStudy solve_slip_study(const input::Case& c, const mesh::Mesh& m, const mesh::Winding& w, solver::TimeHarmonicStats& stats) {
+SlipStudy solve_slip_study(const input::Case& c, const mesh::Mesh& m, const mesh::Winding& w,
+                           solver::TimeHarmonicStats& stats, const std::function<void(int, int)>& solved) {
   SlipStudy out;
   out.materials = c.materials;
   if (c.end_rings && c.geometry.rotor.kind == mesh::RotorKind::slotted) {
@@ -42,7 +43,7 @@ SlipStudy solve_slip_study(const input::Case& c, const mesh::Mesh& m, const mesh
     if (!all_zero(out.components.forward)) problems.push_back({out.components.forward, s * omega, 0.0});
     if (!all_zero(out.components.backward)) problems.push_back({out.components.backward, (2.0 - s) * omega, 0.0});
   }
-  const auto fields = solver::solve_time_harmonic(m, system, problems, stats);
+  const auto fields = solver::solve_time_harmonic(m, system, problems, stats, solved);
   const post::SlipInputs in{&m, &w, coefficients.sigma, coefficients.moves_with_rotor, c.supply.frequency,
                             c.stack_length};
   const Eigen::VectorXcd none = Eigen::VectorXcd::Zero(m.n_nodes());

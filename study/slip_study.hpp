@@ -4,6 +4,7 @@
 // The eddy-current study uses it for rotors with bars; it runs on any rotor, and on a smooth one
 // (rotationally invariant) it is as exact as the motion term.
 
+#include <functional>
 #include <vector>
 
 #include <Eigen/Core>
@@ -33,6 +34,9 @@ solver::Cage cage_of(const input::Case& c);
 
 /// Solves every rotor speed of c.study by the slip-frequency method on the mesh and winding of c.
 /// Applies c.end_rings (slotted rotors) to the bar conductivity. Precondition: >= 2 phases.
-SlipStudy solve_slip_study(const input::Case& c, const mesh::Mesh& m, const mesh::Winding& w, solver::TimeHarmonicStats& stats);
+/// `solved(k, n)`, if given, is told after each of the n field solutions (two per speed when the
+/// supply has a backward component).
+SlipStudy solve_slip_study(const input::Case& c, const mesh::Mesh& m, const mesh::Winding& w, solver::TimeHarmonicStats& stats,
+                           const std::function<void(int, int)>& solved = {});
 
 }  // namespace tf::study

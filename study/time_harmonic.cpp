@@ -2,8 +2,10 @@
 // by the motion term (rotationally invariant rotors) or by the slip-frequency method (rotors with
 // bars, whose field is time-harmonic only in the rotor's own frame).
 
+#include <functional>
 #include <memory>
 #include <numbers>
+#include <string>
 
 #include <fmt/format.h>
 
@@ -48,6 +50,11 @@ void warn_coarse_skins(const std::vector<post::SkinDepth>& skin, std::vector<std
                                      d.region, 1e3 * d.depth, d.frequency, 1e3 * d.element_size));
 }
 
+/// Tells the terminal's progress line of each solution done.
+std::function<void(int, int)> counter(const StudyInput& in, std::string what) {
+  return [&progress = in.progress, what = std::move(what)](int done, int total) { progress.count(what, done, total); };
+}
+
 post::SolverSummary umfpack_summary(const solver::TimeHarmonicStats& stats) {
   return {"UMFPACK complex LU; one symbolic analysis, one factorization per speed", stats.n_dofs, -1, -1, -1,
           std::numeric_limits<double>::quiet_NaN(),
@@ -69,7 +76,7 @@ Solved solve_by_motion_term(const StudyInput& in) {
   std::vector<solver::TimeHarmonicProblem> problems;
   for (double speed : speeds) problems.push_back({currents, 2 * std::numbers::pi * c.supply.frequency, speed});
   const auto solutions = std::make_shared<const std::vector<Eigen::VectorXcd>>(
-      solver::solve_time_harmonic(in.m, system, problems, stats));
+      solver::solve_time_harmonic(in.m, system, problems, stats, counter(in, "solving rotor speeds")));
   const post::SpeedInputs speed_in{&in.m, &in.w, k.sigma, k.moves_with_rotor, currents, c.supply.frequency,
                                    c.stack_length};
   solver::Stopwatch clock;
@@ -96,7 +103,7 @@ Solved solve_by_slip_method(const StudyInput& in) {
   in.progress.stage(fmt::format("solving {} rotor speeds", c.study.rotor_speeds.size()));
   solver::TimeHarmonicStats stats;
   auto study = std::make_shared<SlipStudy>(
-      solver::timed(out.seconds, "solve", [&] { return solve_slip_study(c, in.m, in.w, stats); }));
+      solver::timed(out.seconds, "solve", [&] { return solve_slip_study(c, in.m, in.w, stats, counter(in, "solving slip fields")); }));
   post::EddyResult e;
   e.rows = study->rows;
   e.slip_method = true;
