@@ -51,6 +51,7 @@ struct Reader {
   }
   template <class T>
   void get_into(T* out, std::size_t n) {
+    if (n == 0) return;  // an empty list's data() may be null, which memcpy must not be given
     need(n * sizeof(T));
     std::memcpy(out, bytes.data() + at, n * sizeof(T));
     at += n * sizeof(T);
