@@ -102,6 +102,7 @@ std::optional<std::vector<post::ResultantWave>> resultant(const input::Case& c, 
 
 std::string speed_text(const post::ResultantWave& r) {
   if (r.field == "absent" || r.field == "cancels") return "–";
+  if (r.field == "pulsating") return fmt::format("±{:.5g}", std::abs(r.speed_rpm));  // both ways alike
   return fmt::format("{:.5g}", r.speed_rpm);
 }
 
@@ -119,7 +120,7 @@ void print_waves(const input::Case& c, const mesh::Winding& w, std::ostream& out
                      c.supply.frequency, 60.0 * c.supply.frequency / p);
   out << "electrical order  mechanical  forward  backward  field      speed [rpm]  why\n";
   for (const auto& r : *waves) {
-    const bool turns = r.field == "forward" || r.field == "backward" || r.field == "pulsating";
+    const bool turns = r.field != "absent" && r.field != "cancels";
     out << fmt::format("{:>16g}  {:>10}  {:>7.4f}  {:>8.4f}  {:<9}  {:>11}  {}{}\n", r.electrical_order, r.order,
                        r.forward, r.backward, r.field, speed_text(r),
                        turns ? fmt::format("turns at n_s/{:g}: ", r.electrical_order) : "", r.reason);
@@ -145,11 +146,12 @@ void print_json(const input::Case& c, const mesh::Winding& w, std::ostream& out)
   nlohmann::json waves = nullptr;  // null: the currents follow from the solved field (split phase)
   if (const auto resultant_orders = resultant(c, w)) {
     waves = nlohmann::json::array();
-    for (const auto& r : *resultant_orders)
+    for (const auto& r : *resultant_orders) {
+      const bool still = r.field == "absent" || r.field == "cancels";
       waves.push_back({{"mechanical_order", r.order}, {"electrical_order", r.electrical_order}, {"field", r.field},
                        {"forward", r.forward}, {"backward", r.backward}, {"carried", r.carried},
-                       {"speed_rpm", r.field == "absent" || r.field == "cancels" ? nlohmann::json(nullptr) : nlohmann::json(r.speed_rpm)},
-                       {"reason", r.reason}});
+                       {"speed_rpm", still ? nlohmann::json(nullptr) : nlohmann::json(r.speed_rpm)}, {"reason", r.reason}});
+    }
   }
   const nlohmann::json j = {{"slots", w.n_positions},
                             {"poles", w.spec.n_poles},

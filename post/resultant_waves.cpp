@@ -75,7 +75,7 @@ std::string verdict(const ResultantWave& r) {
   if (r.forward < 1e-6 && r.backward < 1e-6) return "cancels";
   if (r.forward > 10.0 * r.backward) return "forward";
   if (r.backward > 10.0 * r.forward) return "backward";
-  return "pulsating";
+  return std::abs(r.forward - r.backward) < 1e-6 ? "pulsating" : "elliptic";
 }
 
 }  // namespace

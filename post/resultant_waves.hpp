@@ -24,15 +24,15 @@ struct ResultantWave {
   double carried = 0.0;          ///< Σ_k |I_k| |W_k(n)| / Σ_k |I_k| N_k: the phases' own content (0: absent)
   double forward = 0.0;          ///< |Σ_k I_k W_k(n)| / Σ_k |I_k| |W_k(n)|: 1 when every phase adds in step
   double backward = 0.0;         ///< |Σ_k conj(I_k) W_k(n)| / Σ_k |I_k| |W_k(n)|
-  std::string field = {};        ///< "forward", "backward", "pulsating", "cancels" or "absent"
+  std::string field = {};        ///< "forward", "backward", "elliptic", "pulsating", "cancels" or "absent"
   double speed_rpm = 0.0;        ///< of the stronger wave, signed (counter-clockwise positive): ±60 f / n = n_s/ν
   std::string reason = {};       ///< why, from the phases' contributions
 };
 
 /// The resultant wave of each mechanical order in `orders` for peak current phasors `currents`
 /// (one per phase) at `frequency` [Hz]. Thresholds: below 1e-9 carried is absent, both sums below
-/// 1e-6 cancel (round-off); otherwise pulsating where neither wave is 10 times the other (as
-/// post::direction).
+/// 1e-6 cancel (round-off); otherwise forward or backward where one wave is over 10 times the other
+/// (as post::direction), pulsating where the two are equal (to 1e-6) and elliptic in between.
 std::vector<ResultantWave> resultant_waves(const mesh::Winding& w, const std::vector<std::complex<double>>& currents,
                                            double frequency, const std::vector<int>& orders);
 

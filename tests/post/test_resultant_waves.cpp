@@ -12,6 +12,7 @@
 #include "mesh/winding.hpp"
 #include "post/resultant_waves.hpp"
 #include "support/sample_geometry.hpp"
+#include "support/winding_rule.hpp"
 #include "support/winding_spec.hpp"
 
 using namespace tf;
@@ -29,20 +30,6 @@ std::vector<std::complex<double>> balanced(int phases) {
   return solver::supply_phasors(s, phases);
 }
 
-/// The rule of symmetric m-phase windings with balanced currents, for electrical order nu:
-/// windings of alternating polarity carry no even order; of the odd ones nu = 2km + 1 turn forward,
-/// nu = 2km - 1 backward, and the rest (multiples of m for odd m) cancel. J. Pyrhönen, T. Jokinen,
-/// V. Hrabovcová, Design of Rotating Electrical Machines, Wiley 2008, ch. 2 (the m-phase
-/// resultant MMF; equation number not recalled); docs/references.md §3. Derived too: the phases'
-/// forward parts go as e^{j(nu-1)k delta}, the backward ones as e^{j(nu+1)k delta}, and a geometric
-/// sum over k = 0 .. m-1 vanishes unless its angle step is a whole turn.
-std::string textbook(int nu, int m) {
-  if (nu % 2 == 0) return "absent";
-  if (nu % (2 * m) == 1) return "forward";
-  if (nu % (2 * m) == 2 * m - 1) return "backward";
-  return "cancels";
-}
-
 }  // namespace
 
 TEST_CASE("resultant waves of symmetric 2- and 3-phase windings with balanced currents follow the textbook rule") {
@@ -57,7 +44,7 @@ TEST_CASE("resultant waves of symmetric 2- and 3-phase windings with balanced cu
       INFO(m, " phases, pitch ", pitch, ", order ", nu, ": ", r.field, " (", r.reason, ")");
       // The 5/6 pitch of a three-phase winding leaves its 5th and 7th at k_w = 0.067, not zero;
       // a two-phase winding of pitch 5 still carries every odd order (k_p = sin(nu 75°) != 0).
-      CHECK(r.field == textbook(nu, m));
+      CHECK(r.field == testing::symmetric_winding_wave(nu, m));
       CHECK(r.electrical_order == nu);
       if (r.field == "forward" || r.field == "backward") {
         // The surviving wave: every phase adds in step (exact for a symmetric winding).
@@ -100,7 +87,7 @@ TEST_CASE("a three-phase winding with phase C reversed: the phasor sums worked b
   REQUIRE(waves.size() == 2);
   CHECK(waves[0].forward == doctest::Approx(1.0 / 3).epsilon(1e-9).scale(0));
   CHECK(waves[0].backward == doctest::Approx(2.0 / 3).epsilon(1e-9).scale(0));
-  CHECK(waves[0].field == "pulsating");  // neither wave 10 times the other
+  CHECK(waves[0].field == "elliptic");  // neither wave 10 times the other, nor equal
   CHECK(waves[0].speed_rpm == doctest::Approx(-1500.0).epsilon(1e-12).scale(0));  // the backward one leads
   CHECK(waves[1].field == "pulsating");
   CHECK(waves[1].forward == doctest::Approx(2.0 / 3).epsilon(1e-9).scale(0));
