@@ -87,7 +87,7 @@ std::vector<ResultantWave> resultant_waves(const mesh::Winding& w, const std::ve
   std::vector<double> conductors(static_cast<std::size_t>(m), 0.0);
   for (const mesh::CoilSide& s : w.sides) conductors[static_cast<std::size_t>(s.phase)] += s.turns;
   double content = 0.0;
-  for (int k = 0; k < m; ++k) content += std::abs(currents[static_cast<std::size_t>(k)]) * conductors[static_cast<std::size_t>(k)];
+  for (std::size_t k = 0; k < conductors.size(); ++k) content += std::abs(currents[k]) * conductors[k];
   std::vector<ResultantWave> out;
   for (int n : orders) {
     ResultantWave r{n, static_cast<double>(n) / p};
@@ -122,9 +122,8 @@ std::optional<std::vector<std::complex<double>>> fundamental_currents(const solv
   std::vector<std::complex<double>> out(static_cast<std::size_t>(n_phases), 0.0);
   const double n_states = static_cast<double>(s.states.size());
   for (std::size_t state = 0; state < s.states.size(); ++state)
-    for (int k = 0; k < n_phases; ++k)
-      out[static_cast<std::size_t>(k)] +=
-          (2.0 / n_states) * s.states[state][static_cast<std::size_t>(k)] * std::polar(1.0, -2 * std::numbers::pi * state / n_states);
+    for (std::size_t k = 0; k < out.size(); ++k)
+      out[k] += (2.0 / n_states) * s.states[state][k] * std::polar(1.0, -2 * std::numbers::pi * state / n_states);
   return out;
 }
 

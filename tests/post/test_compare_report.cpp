@@ -99,7 +99,8 @@ TEST_CASE("the comparison page draws every case on each figure, with one column 
   // Spectra: a bar for each order of each case (the fundamental and the 5th), grouped by order.
   const std::string& bars = figure(page, "spectra").svg;
   std::size_t n_bars = 0;
-  for (auto pos = bars.find("<rect class=\"data\""); pos != std::string::npos; pos = bars.find("<rect class=\"data\"", pos + 1)) ++n_bars;
+  const std::string bar = "<rect class=\"data\"";
+  for (auto pos = bars.find(bar); pos != std::string::npos; pos = bars.find(bar, pos + 1)) ++n_bars;
   CHECK(n_bars == 4);
   CHECK(bars.find("ellipse, 5: 0.05") != std::string::npos);
 
@@ -107,7 +108,8 @@ TEST_CASE("the comparison page draws every case on each figure, with one column 
   REQUIRE(!page.tables.empty());
   const post::Table& head = page.tables.front();
   CHECK(head.columns == std::vector<std::string>{"quantity", "circle", "ellipse", "unit"});
-  const auto row = std::find_if(head.rows.begin(), head.rows.end(), [](const auto& r) { return r[0].text == "locus axis ratio (minor/major)"; });
+  const auto row = std::find_if(head.rows.begin(), head.rows.end(),
+                                [](const auto& r) { return r[0].text == "locus axis ratio (minor/major)"; });
   REQUIRE(row != head.rows.end());
   CHECK((*row)[1].text == "1");
   CHECK((*row)[2].text == "0.5");
