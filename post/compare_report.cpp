@@ -67,6 +67,10 @@ Table headline_table(const std::vector<ComparedCase>& cases) {
           "counter-clockwise positive, where the rotor turns (–: not this study's)."};
   for (const ComparedCase& c : cases) t.columns.push_back(c.name);
   t.columns.push_back("unit");
+  std::vector<Cell> links = {"report of the case"};  // each case's folder is named after it
+  for (const ComparedCase& c : cases) links.emplace_back(c.name + "/report.html", c.name + "/report.html");
+  links.emplace_back("");
+  t.rows.push_back(std::move(links));
   for (const Row& r : headline_rows(cases)) {
     std::vector<Cell> row = {r.quantity};
     for (const auto& v : r.values) row.emplace_back(v);

@@ -98,8 +98,9 @@ constexpr Shown kShown[] = {{"air-gap B_r fundamental (mean over steps)", "funda
                             {"torque, Arkkio, mean", "torque_mean_N_m", 1.0},
                             {"torque ripple (Arkkio, peak-to-peak / |mean|)", "torque_ripple", 100.0}};
 
-/// Every number of the headline table equals its comparison.csv cell (both keep 6 significant digits).
-void check_table_agrees(const std::string& html, const std::map<std::string, Row>& csv) {
+/// Every number of the headline table equals its comparison.csv cell (both keep 6 significant digits),
+/// and each case's column links to its own report in `dir`.
+void check_table_agrees(const std::string& html, const std::map<std::string, Row>& csv, const fs::path& dir) {
   const auto table = html_table(html, "Headline numbers side by side");
   REQUIRE(table.size() > 1);
   const auto& columns = table[0];
@@ -121,6 +122,14 @@ void check_table_agrees(const std::string& html, const std::map<std::string, Row
     }
   }
   CHECK(n_checked >= 16);
+  // Each column links to that case's own report, which exists.
+  const auto links = std::find_if(table.begin(), table.end(), [](const auto& r) { return r[0] == "report of the case"; });
+  REQUIRE(links != table.end());
+  for (std::size_t k = 1; k + 1 < columns.size(); ++k)
+  {
+    CHECK((*links)[k] == "<a href=\"" + columns[k] + "/report.html\">" + columns[k] + "/report.html</a>");
+    CHECK(fs::exists(dir / columns[k] / "report.html"));
+  }
 }
 
 /// Runs scripts/check_report on the page: headless Chromium, caution, every figure with data.
@@ -149,7 +158,7 @@ TEST_CASE("compare writes report.html: rendered, every case drawn, the table as 
   const std::string html = file_text(out / "report.html");
   const auto csv = read_comparison(out / "comparison.csv");
   REQUIRE(csv.size() == 2);
-  check_table_agrees(html, csv);
+  check_table_agrees(html, csv, out);
 
   // One curve of B_r per case over the whole circle, one locus per case over the 36 steps, and bars
   // of both cases in the spectra.
@@ -211,7 +220,7 @@ TEST_CASE("compare tabulates a synchronous study with its torque, as its own fol
   CHECK(std::stod(motion.at("torque_ripple")) == doctest::Approx(torque["ripple"].get<double>()).epsilon(1e-5).scale(0));
   CHECK(motion.at("solved_by") == "step_by_step");
   CHECK(csv.at("pump24_three_phase").at("torque_mean_N_m").empty());  // a rotor at rest: no torque
-  check_table_agrees(file_text(out / "report.html"), csv);
+  check_table_agrees(file_text(out / "report.html"), csv, out);
 }
 
 TEST_CASE("compare refuses, before solving anything, a study whose stator field does not turn: exit 2, the file named") {
