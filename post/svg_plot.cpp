@@ -165,21 +165,25 @@ std::string locus_overlay(const LocusOverlay& c) {
   for (std::size_t k = 0; k < c.loci.size(); ++k) {
     const Locus& l = c.loci[k];
     if (l.points.empty()) continue;
-    const std::string colour = series_colour(static_cast<int>(k));
+    // One locus keeps a grey circle and an orange first-step dot; several take their own colours.
+    const bool alone = c.loci.size() == 1;
+    const std::string colour = series_colour(static_cast<int>(k)), circle = alone ? "#888" : colour;
+    const std::string dot = alone ? series_colour(1) : colour;
     double mean = 0.0;
     for (const auto& z : l.points) mean += std::abs(z) / static_cast<double>(l.points.size());
     out += fmt::format(
         "<circle class=\"reference\" cx=\"{:.1f}\" cy=\"{:.1f}\" r=\"{:.1f}\" fill=\"none\" stroke=\"{}\" "
         "stroke-opacity=\"0.6\" stroke-dasharray=\"5 4\"/>\n",
-        f.px(0), f.py(0), mean * (f.right - f.left) / (f.x_hi - f.x_lo), c.loci.size() == 1 ? "#888" : colour);
+        f.px(0), f.py(0), mean * (f.right - f.left) / (f.x_hi - f.x_lo), circle);
     std::vector<double> x, y;
     for (const auto& z : l.points) x.push_back(z.real()), y.push_back(z.imag());
     out += fmt::format("<path class=\"data\" d=\"{}Z\" fill=\"none\" stroke=\"{}\" stroke-width=\"1.8\"/>\n",
                        polyline_path(f, x, y), colour);
     out += fmt::format("<circle cx=\"{:.1f}\" cy=\"{:.1f}\" r=\"4\" fill=\"{}\"><title>{}: first step</title></circle>\n",
-                       f.px(x[0]), f.py(y[0]), colour, escape(l.name));
+                       f.px(x[0]), f.py(y[0]), dot, escape(l.name));
     legend.push_back({l.name, colour, false});
-    legend.push_back({"mean radius " + format_number(mean) + " " + c.unit, c.loci.size() == 1 ? "#888" : colour, true});
+    if (alone) legend.push_back({"first step", dot, false});
+    legend.push_back({"mean radius " + format_number(mean) + " " + c.unit, circle, true});
   }
   if (empty) out += no_data_note(f);
   out += draw_legend(legend);

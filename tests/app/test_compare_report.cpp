@@ -132,6 +132,17 @@ void check_table_agrees(const std::string& html, const std::map<std::string, Row
   }
 }
 
+/// Runs `compare` of the bundled case `name` and pump24_three_phase, coarse and without field files,
+/// into a fresh folder `folder`; requires success and returns the folder.
+fs::path compared(const std::string& folder, const std::string& name, const std::string& options) {
+  const fs::path out = fresh_folder(folder);
+  const auto run = turnfield("compare " + bundled(name) + " " + bundled("pump24_three_phase") +
+                             " --fineness 0.5 --field-files 0" + options + " --out " + out.string());
+  INFO(run.output);
+  REQUIRE(run.status == 0);
+  return out;
+}
+
 /// Runs scripts/check_report on the page: headless Chromium, caution, every figure with data.
 void check_renders(const fs::path& report) {
   const auto r = tf::testing::run_command("bash " + std::string(TF_SOURCE_DIR) + "/scripts/check_report " + report.string());
@@ -147,11 +158,7 @@ void check_renders(const fs::path& report) {
 }  // namespace
 
 TEST_CASE("compare writes report.html: rendered, every case drawn, the table as comparison.csv, the windings' physics") {
-  const fs::path out = fresh_folder("compare_report");
-  const auto run = turnfield("compare " + bundled("pump24_two_phase") + " " + bundled("pump24_three_phase") +
-                             " --fineness 0.5 --field-files 0 --out " + out.string());
-  INFO(run.output);
-  REQUIRE(run.status == 0);
+  const fs::path out = compared("compare_report", "pump24_two_phase", "");
   REQUIRE(fs::exists(out / "report.html"));
   for (const char* f : {"gap_field", "spectra", "loci"}) CHECK(fs::exists(out / "figures" / (std::string(f) + ".svg")));
   check_renders(out / "report.html");
@@ -208,11 +215,7 @@ TEST_CASE("compare writes report.html: rendered, every case drawn, the table as 
 }
 
 TEST_CASE("compare tabulates a synchronous study with its torque, as its own folder has it") {
-  const fs::path out = fresh_folder("compare_synchronous");
-  const auto run = turnfield("compare " + bundled("pump24_magnets_synchronous") + " " + bundled("pump24_three_phase") +
-                             " --fineness 0.5 --steps 12 --field-files 0 --out " + out.string());
-  INFO(run.output);
-  REQUIRE(run.status == 0);
+  const fs::path out = compared("compare_synchronous", "pump24_magnets_synchronous", " --steps 12");
   const auto csv = read_comparison(out / "comparison.csv");
   const auto& motion = csv.at("pump24_magnets_synchronous");
   const auto torque = tf::testing::read_summary(out / "pump24_magnets_synchronous")["torque"]["arkkio"];
@@ -234,4 +237,22 @@ TEST_CASE("compare refuses, before solving anything, a study whose stator field 
     CHECK(run.output.find("expected \"phase_angles\" or \"synchronous\"") != std::string::npos);
     CHECK_FALSE(fs::exists(out));  // not even the valid case was run
   }
+}
+
+TEST_CASE("compare: a two-phase winding with B lagging A by 60° draws the ellipse of axis ratio tan 30°") {
+  // Phase B's fundamental is phase A's turned by 90° el. (a linear solve), so with I_B = I_A e^{-j60°}
+  // the forward wave goes as |1 + e^{j30°}| = 2 cos 15° and the backward as |1 + e^{j150°}| = 2 sin 15°
+  // (derived; the symmetrical-component split of C. L. Fortescue, Trans. AIEE 37, 1918): the locus
+  // axis ratio is (cos 15° - sin 15°)/(cos 15° + sin 15°) = tan 30°, and its drawn radii keep it.
+  const fs::path out = compared("compare_elliptic", "pump24_two_phase_60deg", "");
+  const double expected = std::tan(std::numbers::pi / 6);
+  const auto csv = read_comparison(out / "comparison.csv");
+  CHECK(std::stod(csv.at("pump24_two_phase_60deg").at("locus_axis_ratio")) ==
+        doctest::Approx(expected).epsilon(1e-4).scale(0));
+  const std::string loci_svg = figure_svg(file_text(out / "report.html"), "loci");
+  const auto [cx, cy] = tf::testing::locus_centre(loci_svg);
+  const auto [r_min, r_max] = tf::testing::radius_range(data_paths(loci_svg).at(0), cx, cy);
+  // The axes lie at ωt = 30° and 120° (where the two waves align and oppose), both among the 36 steps
+  // of 10°; 0.1 px rounding on radii of about 100 px.
+  CHECK(r_min / r_max == doctest::Approx(expected).epsilon(3e-3).scale(0));
 }
