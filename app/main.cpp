@@ -109,7 +109,8 @@ int main(int argc, char** argv) {
 
   auto* check = cli.add_subcommand("check", "validate a case file without solving and print its derived geometry");
   check->add_option("CASE", case_path, "case file (TOML)")->required();
-  auto* winding = cli.add_subcommand("winding", "print the slot table and winding factors");
+  auto* winding = cli.add_subcommand(
+      "winding", "print the slot table, the winding factors and how each order of the resultant field turns");
   winding->add_option("CASE", case_path, "case file (TOML)")->required();
   winding->add_flag("--json", as_json, "print JSON instead of text");
   auto* mesh = cli.add_subcommand("mesh", "mesh the cross-section and write mesh.vtu with region ids");
@@ -132,7 +133,8 @@ int main(int argc, char** argv) {
   run->add_option("--report-step", report_step,
                   "step (eddy currents: speed number) whose cross-section report.html draws, from 0 (default 0)");
 
-  auto* compare = cli.add_subcommand("compare", "run several cases and tabulate their field metrics side by side");
+  auto* compare = cli.add_subcommand(
+      "compare", "run several cases; their field metrics side by side in comparison.csv and report.html");
   compare->add_option("CASES", case_paths, "case files (TOML)")->required()->expected(2, 1000);
   compare->add_option("--out", out_dir, "output folder (default results/comparison)");
   compare->add_option("--fineness", fineness, "override every case's mesh fineness")->check(kFinite & CLI::Range(0.1, 20.0));

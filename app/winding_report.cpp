@@ -2,11 +2,14 @@
 
 #include <cmath>
 #include <numeric>
+#include <optional>
+#include <vector>
 
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
 #include "mesh/winding.hpp"
+#include "post/resultant_waves.hpp"
 #include "post/tables.hpp"
 
 namespace tf::app {
@@ -83,7 +86,48 @@ void print_factors(const mesh::Winding& w, std::ostream& out) {
                        n == p ? "   fundamental" : (n < p ? "   sub-harmonic" : ""));
 }
 
-void print_json(const mesh::Winding& w, std::ostream& out) {
+/// The resultant waves of the whole winding with the case's currents: every whole electrical order up
+/// to kMaxOrder, and any other mechanical order (sub-harmonics) some phase carries.
+std::optional<std::vector<post::ResultantWave>> resultant(const input::Case& c, const mesh::Winding& w) {
+  const auto currents = post::fundamental_currents(c.supply, w.spec.n_phases);
+  if (!currents) return std::nullopt;
+  const int p = w.spec.pole_pairs();
+  std::vector<int> orders;
+  for (int n = 1; n <= kMaxOrder * p; ++n) orders.push_back(n);
+  std::vector<post::ResultantWave> shown;
+  for (auto& r : post::resultant_waves(w, *currents, c.supply.frequency, orders))
+    if (r.order % p == 0 || r.carried > 1e-9) shown.push_back(std::move(r));
+  return shown;
+}
+
+std::string speed_text(const post::ResultantWave& r) {
+  if (r.field == "absent" || r.field == "cancels") return "–";
+  if (r.field == "pulsating") return fmt::format("±{:.5g}", std::abs(r.speed_rpm));  // both ways alike
+  return fmt::format("{:.5g}", r.speed_rpm);
+}
+
+void print_waves(const input::Case& c, const mesh::Winding& w, std::ostream& out) {
+  const auto waves = resultant(c, w);
+  const int m = w.spec.n_phases, p = w.spec.pole_pairs();
+  if (!waves) {
+    out << fmt::format("\nresultant field of the {} phases: the currents of a split-phase supply follow from the "
+                       "solved field; run the case (space_harmonics.csv splits each order)\n", m);
+    return;
+  }
+  out << fmt::format("\nresultant field of the {} phases with the case's currents ({}{:g} Hz, n_s = {:.5g} rpm); "
+                     "forward and backward as fractions of the phases' waves all in step:\n",
+                     m, c.supply.kind == solver::SupplyKind::stepped_dc ? "the DC sequence's fundamental, " : "",
+                     c.supply.frequency, 60.0 * c.supply.frequency / p);
+  out << "electrical order  mechanical  forward  backward  field      speed [rpm]  why\n";
+  for (const auto& r : *waves) {
+    const bool turns = r.field != "absent" && r.field != "cancels";
+    out << fmt::format("{:>16g}  {:>10}  {:>7.4f}  {:>8.4f}  {:<9}  {:>11}  {}{}\n", r.electrical_order, r.order,
+                       r.forward, r.backward, r.field, speed_text(r),
+                       turns ? fmt::format("turns at n_s/{:g}: ", r.electrical_order) : "", r.reason);
+  }
+}
+
+void print_json(const input::Case& c, const mesh::Winding& w, std::ostream& out) {
   nlohmann::json sides = nlohmann::json::array(), factors = nlohmann::json::array(), orders = nlohmann::json::array();
   for (const auto& s : w.sides)
     sides.push_back({{"slot", s.slot}, {"layer", s.layer}, {"phase", post::phase_name(s.phase)},
@@ -99,6 +143,16 @@ void print_json(const mesh::Winding& w, std::ostream& out) {
   }
   for (const auto& [n, k] : mesh::space_orders(w, kMaxOrder * w.spec.pole_pairs()))
     orders.push_back({{"mechanical_order", n}, {"winding_factor", k}});
+  nlohmann::json waves = nullptr;  // null: the currents follow from the solved field (split phase)
+  if (const auto resultant_orders = resultant(c, w)) {
+    waves = nlohmann::json::array();
+    for (const auto& r : *resultant_orders) {
+      const bool still = r.field == "absent" || r.field == "cancels";
+      waves.push_back({{"mechanical_order", r.order}, {"electrical_order", r.electrical_order}, {"field", r.field},
+                       {"forward", r.forward}, {"backward", r.backward}, {"carried", r.carried},
+                       {"speed_rpm", still ? nlohmann::json(nullptr) : nlohmann::json(r.speed_rpm)}, {"reason", r.reason}});
+    }
+  }
   const nlohmann::json j = {{"slots", w.n_positions},
                             {"poles", w.spec.n_poles},
                             {"phases", w.spec.n_phases},
@@ -110,7 +164,8 @@ void print_json(const mesh::Winding& w, std::ostream& out) {
                             {"series_turns_per_phase", w.series_turns()},
                             {"coil_sides", sides},
                             {"winding_factors", factors},
-                            {"space_orders", orders}};
+                            {"space_orders", orders},
+                            {"resultant_waves", waves}};
   out << j.dump(2) << '\n';
 }
 
@@ -118,10 +173,11 @@ void print_json(const mesh::Winding& w, std::ostream& out) {
 
 void print_winding(const input::Case& c, bool as_json, std::ostream& out) {
   const mesh::Winding w = mesh::lay_out(c.winding, c.geometry.stator);
-  if (as_json) return print_json(w, out);
+  if (as_json) return print_json(c, w, out);
   print_header(w, c.geometry.stator.kind == mesh::StatorKind::slotless, out);
   print_table(w, out);
   print_factors(w, out);
+  print_waves(c, w, out);
 }
 
 }  // namespace tf::app

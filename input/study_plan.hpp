@@ -31,6 +31,10 @@ inline bool rotor_turns(StudyKind k) {
   return k == StudyKind::synchronous || k == StudyKind::cogging || k == StudyKind::rotor_sweep;
 }
 
+/// True for the studies whose stator currents advance through a period, so that the stator field
+/// turns over the steps and rotation metrics apply: phase angles and synchronous.
+inline bool stator_field_turns(StudyKind k) { return k == StudyKind::phase_angles || k == StudyKind::synchronous; }
+
 struct StudyPlan {
   StudyKind kind = StudyKind::phase_angles;
   std::vector<double> rotor_speeds;  ///< eddy currents: mechanical speeds [rad/s], counter-clockwise

@@ -9,7 +9,7 @@
 #include <nlohmann/json.hpp>
 
 #include "post/flux_density.hpp"
-#include "post/space_harmonics.hpp"
+#include "post/space_harmonic_table.hpp"
 #include "post/svg_plot.hpp"
 
 namespace tf::post {
@@ -244,17 +244,7 @@ void add_speeds(Page& page, std::vector<KeyValue>& head, const std::vector<Speed
 
 /// The space harmonics of a turning field at 0.5 % of the fundamental or more, in electrical orders.
 Table harmonic_table(const StudyResult& field, const RunRecord& r) {
-  Table t{"Space harmonics of B_r (electrical orders)",
-          {"order ν", "mechanical n", "amplitude [T]", "% of fundamental", "turns", "speed [rpm]", "winding factor"},
-          {},
-          "Mean over the steps of |c_n|; each order split by the temporal DFT into the waves turning forward "
-          "(counter-clockwise) and backward, 'pulsating' where neither is ten times the other; speed n_s/ν. "
-          "Orders under 0.5 % of the fundamental are in space_harmonics.csv only."};
-  for (const SpaceHarmonic& h : space_harmonics(field, *r.winding, r.frequency))
-    if (h.relative >= 0.005)
-      t.rows.push_back({num(h.electrical_order), std::to_string(h.order), num(h.amplitude), num(100 * h.relative, 3),
-                        direction(h), num(h.speed_rpm, 5), num(h.winding_factor)});
-  return t;
+  return space_harmonic_table(space_harmonics(field, *r.winding, r.frequency), "Space harmonics of B_r (electrical orders)");
 }
 
 /// What the headline table says about how its numbers were found.

@@ -89,7 +89,7 @@ std::string line_chart(const LineChart& c) {
   auto [x_lo, x_hi] = finite_range(xs);
   const auto [y_lo, y_hi] = finite_range(ys);
   const bool empty = std::isnan(x_lo) || std::isnan(y_lo);
-  std::vector<double> x_ticks = empty ? nice_ticks(0, 1) : nice_ticks(x_lo, x_hi);
+  std::vector<double> x_ticks = !c.x_ticks.empty() ? c.x_ticks : empty ? nice_ticks(0, 1) : nice_ticks(x_lo, x_hi);
   if (!c.categories.empty()) {  // categories sit half a step inside the frame
     x_ticks.clear();
     for (std::size_t i = 0; i < c.categories.size(); ++i) x_ticks.push_back(static_cast<double>(i));
@@ -147,11 +147,13 @@ std::string stem_chart(const StemChart& c) {
   return out + "</svg>\n";
 }
 
-std::string locus_plot(const LocusPlot& c) {
-  double radius = 0.0, mean = 0.0;
-  for (const auto& z : c.points) radius = std::max(radius, std::abs(z)), mean += std::abs(z);
-  const bool empty = c.points.empty();
-  if (!empty) mean /= static_cast<double>(c.points.size());
+std::string locus_plot(const LocusPlot& c) { return locus_overlay({c.title, c.unit, {{"locus over the period", c.points}}}); }
+
+std::string locus_overlay(const LocusOverlay& c) {
+  double radius = 0.0;
+  for (const auto& l : c.loci)
+    for (const auto& z : l.points) radius = std::max(radius, std::abs(z));
+  const bool empty = std::all_of(c.loci.begin(), c.loci.end(), [](const Locus& l) { return l.points.empty(); });
   const double reach = radius > 0.0 ? radius : 1.0;
   const std::vector<double> ticks = nice_ticks(-reach, reach, 4);
   // Equal scales: a square plot area on the same ticks for both axes.
@@ -160,25 +162,67 @@ std::string locus_plot(const LocusPlot& c) {
   std::string out = open_chart(c.title, kWidth, kHeight);
   out += draw_axes(f, ticks, ticks, "Re [" + c.unit + "]", "Im [" + c.unit + "]", {});
   std::vector<LegendEntry> legend;
-  if (!empty) {
-    const double r_px = mean * (f.right - f.left) / (f.x_hi - f.x_lo);
+  for (std::size_t k = 0; k < c.loci.size(); ++k) {
+    const Locus& l = c.loci[k];
+    if (l.points.empty()) continue;
+    // One locus keeps a grey circle and an orange first-step dot; several take their own colours.
+    const bool alone = c.loci.size() == 1;
+    const std::string colour = series_colour(static_cast<int>(k)), circle = alone ? "#888" : colour;
+    const std::string dot = alone ? series_colour(1) : colour;
+    double mean = 0.0;
+    for (const auto& z : l.points) mean += std::abs(z) / static_cast<double>(l.points.size());
     out += fmt::format(
-        "<circle class=\"reference\" cx=\"{:.1f}\" cy=\"{:.1f}\" r=\"{:.1f}\" fill=\"none\" stroke=\"#888\" "
-        "stroke-dasharray=\"5 4\"/>\n",
-        f.px(0), f.py(0), r_px);
+        "<circle class=\"reference\" cx=\"{:.1f}\" cy=\"{:.1f}\" r=\"{:.1f}\" fill=\"none\" stroke=\"{}\" "
+        "stroke-opacity=\"0.6\" stroke-dasharray=\"5 4\"/>\n",
+        f.px(0), f.py(0), mean * (f.right - f.left) / (f.x_hi - f.x_lo), circle);
     std::vector<double> x, y;
-    for (const auto& z : c.points) x.push_back(z.real()), y.push_back(z.imag());
-    std::string d = polyline_path(f, x, y);
-    out += fmt::format("<path class=\"data\" d=\"{}Z\" fill=\"none\" stroke=\"{}\" stroke-width=\"1.8\"/>\n", d,
-                       series_colour(0));
-    out += fmt::format("<circle cx=\"{:.1f}\" cy=\"{:.1f}\" r=\"4\" fill=\"{}\"><title>first step</title></circle>\n",
-                       f.px(x[0]), f.py(y[0]), series_colour(1));
-    legend = {{"locus over the period", series_colour(0), false},
-              {"first step", series_colour(1), false},
-              {"mean radius " + format_number(mean) + " " + c.unit, "#888", true}};
-  } else {
-    out += no_data_note(f);
+    for (const auto& z : l.points) x.push_back(z.real()), y.push_back(z.imag());
+    out += fmt::format("<path class=\"data\" d=\"{}Z\" fill=\"none\" stroke=\"{}\" stroke-width=\"1.8\"/>\n",
+                       polyline_path(f, x, y), colour);
+    out += fmt::format("<circle cx=\"{:.1f}\" cy=\"{:.1f}\" r=\"4\" fill=\"{}\"><title>{}: first step</title></circle>\n",
+                       f.px(x[0]), f.py(y[0]), dot, escape(l.name));
+    legend.push_back({l.name, colour, false});
+    if (alone) legend.push_back({"first step", dot, false});
+    legend.push_back({"mean radius " + format_number(mean) + " " + c.unit, circle, true});
   }
+  if (empty) out += no_data_note(f);
+  out += draw_legend(legend);
+  return out + "</svg>\n";
+}
+
+std::string grouped_bar_chart(const GroupedBarChart& c) {
+  std::vector<const std::vector<double>*> values;
+  for (const auto& s : c.series) values.push_back(&s.values);
+  const auto [y_lo, y_hi] = finite_range(values);
+  const bool empty = c.categories.empty() || std::isnan(y_lo);
+  std::vector<double> x_ticks;
+  for (std::size_t i = 0; i < c.categories.size(); ++i) x_ticks.push_back(static_cast<double>(i));
+  if (x_ticks.empty()) x_ticks = {0.0};
+  const std::vector<double> y_ticks = empty ? nice_ticks(0, 1) : nice_ticks(std::min(0.0, y_lo), std::max(0.0, y_hi));
+  Frame f = Frame::around(x_ticks, y_ticks);
+  f.x_lo -= 0.5, f.x_hi = f.x_lo + static_cast<double>(std::max<std::size_t>(1, c.categories.size()));
+  std::string out = open_chart(c.title, kWidth, kHeight);
+  out += draw_axes(f, x_ticks, y_ticks, c.x.text(), c.y.text(),
+                   c.categories.empty() ? std::vector<std::string>{""} : c.categories);
+  // Each group fills 80 % of its category's width, split equally between the series.
+  const double group = 0.8 * (f.right - f.left) / (f.x_hi - f.x_lo);
+  const double width = group / static_cast<double>(std::max<std::size_t>(1, c.series.size()));
+  std::vector<LegendEntry> legend;
+  for (std::size_t k = 0; k < c.series.size(); ++k) {
+    const std::string colour = series_colour(static_cast<int>(k));
+    for (std::size_t i = 0; i < c.categories.size() && i < c.series[k].values.size(); ++i) {
+      const double v = c.series[k].values[i];
+      if (!std::isfinite(v)) continue;
+      const double top = std::min(f.py(v), f.py(0.0)), bottom = std::max(f.py(v), f.py(0.0));
+      out += fmt::format(
+          "<rect class=\"data\" x=\"{:.1f}\" y=\"{:.1f}\" width=\"{:.1f}\" height=\"{:.1f}\" fill=\"{}\">"
+          "<title>{}, {}: {}</title></rect>\n",
+          f.px(static_cast<double>(i)) - group / 2 + width * static_cast<double>(k), top, width,
+          std::max(0.5, bottom - top), colour, escape(c.series[k].name), escape(c.categories[i]), format_number(v));
+    }
+    legend.push_back({c.series[k].name, colour, false});
+  }
+  if (empty) out += no_data_note(f);
   out += draw_legend(legend);
   return out + "</svg>\n";
 }

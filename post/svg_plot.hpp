@@ -36,6 +36,7 @@ struct LineChart {
   std::vector<Series> series;
   std::vector<std::string> categories;
   bool include_zero = false;  ///< y axis reaches down (or up) to 0, so small changes look small
+  std::vector<double> x_ticks = {};  ///< fixed x ticks, e.g. 0, 60, …, 360°; empty: nice ticks of the data
 };
 std::string line_chart(const LineChart& c);
 
@@ -55,6 +56,33 @@ struct LocusPlot {
   std::vector<std::complex<double>> points;
 };
 std::string locus_plot(const LocusPlot& c);
+
+/// Several loci on one complex plane (equal scales), each closed, in its own colour, with the
+/// dashed circle of its own mean radius in that colour; the first point of each marked.
+struct Locus {
+  std::string name;
+  std::vector<std::complex<double>> points;
+};
+struct LocusOverlay {
+  std::string title;
+  std::string unit;  ///< of Re and Im
+  std::vector<Locus> loci;
+};
+std::string locus_overlay(const LocusOverlay& c);
+
+/// Bars grouped by category (e.g. harmonic orders), one bar per series in each group, on one
+/// y axis from 0; NaN values draw no bar.
+struct BarSeries {
+  std::string name;
+  std::vector<double> values;  ///< one per category
+};
+struct GroupedBarChart {
+  std::string title;
+  Axis x, y;
+  std::vector<std::string> categories;
+  std::vector<BarSeries> series;
+};
+std::string grouped_bar_chart(const GroupedBarChart& c);
 
 /// Mesh triangles coloured by one value each, with a colour bar. Triangles are grouped into
 /// kColourBins bins of equal width over [min, max] and drawn as one <path> per bin.

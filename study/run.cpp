@@ -113,7 +113,10 @@ RunOutcome run_study(const input::Case& c, const RunOptions& options, std::ostre
   post::print_summary(out, record, options.out_dir);
 
   RunOutcome outcome{strategy, std::nullopt, mesh::layout_winding_factor(mc.winding, 0, c.winding.pole_pairs())};
-  if (solved.field && solved.field_rotates) outcome.field = solved.field->metrics;
+  if (solved.field && solved.field_rotates) {
+    outcome.field = solved.field->metrics;
+    outcome.compared = post::compared_case(record);
+  }
   return outcome;
 }
 

@@ -7,6 +7,7 @@
 #include <ostream>
 
 #include "input/case.hpp"
+#include "post/compare_report.hpp"
 #include "post/rotation_metrics.hpp"
 #include "study/solved.hpp"
 #include "study/strategy.hpp"
@@ -23,6 +24,7 @@ struct RunOutcome {
   Strategy strategy = Strategy::superposition;
   std::optional<post::RotationMetrics> field;  ///< when the stator field turns over the steps
   double winding_factor = 0.0;                 ///< fundamental, phase A, star of slots
+  std::optional<post::ComparedCase> compared = {};  ///< with `field`: what `compare` draws (name, solved_by unset)
 };
 
 /// Runs the case's study and writes its result folder; prints a short summary to `out`.

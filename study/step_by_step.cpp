@@ -225,7 +225,7 @@ Solved solve_step_by_step(const StudyInput& in) {
 
   out.rotor_turns = input::rotor_turns(c.study.kind);
   // The stator field turns when the currents advance over the steps: phase angles and synchronous.
-  out.field_rotates = c.study.kind == input::StudyKind::phase_angles || c.study.kind == input::StudyKind::synchronous;
+  out.field_rotates = input::stator_field_turns(c.study.kind);
   out.load_angle = plan.load_angle;
   if (out.rotor_turns)
     if (std::string w = sampling_warning(r, plan); !w.empty()) out.warnings.push_back(std::move(w));

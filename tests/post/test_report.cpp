@@ -20,31 +20,13 @@
 #include "post/svg_plot.hpp"
 #include "post/sweep_report.hpp"
 #include "support/polar_mesh.hpp"
+#include "support/svg_paths.hpp"
 
 using namespace tf;
 namespace svg = tf::post::svg;
+using tf::testing::data_paths;
 
 namespace {
-
-struct Point {
-  double x, y;
-};
-
-/// The points of every "M x y L x y … [Z]" path with class="data", in order.
-std::vector<std::vector<Point>> data_paths(const std::string& s) {
-  std::vector<std::vector<Point>> out;
-  const std::regex path(R"re(<path class="data"[^>]*\bd="([^"]*)")re");
-  for (auto it = std::sregex_iterator(s.begin(), s.end(), path); it != std::sregex_iterator(); ++it) {
-    std::string d = (*it)[1];
-    for (char& ch : d)
-      if (ch == 'M' || ch == 'L' || ch == 'Z') ch = ' ';
-    std::istringstream in(d);
-    std::vector<Point> points;
-    for (Point p{}; in >> p.x >> p.y;) points.push_back(p);
-    out.push_back(points);
-  }
-  return out;
-}
 
 std::size_t count(const std::string& s, const std::string& what) {
   std::size_t n = 0;
