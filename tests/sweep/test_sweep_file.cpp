@@ -9,6 +9,7 @@
 #include "input/input_error.hpp"
 #include "sweep/sweep_file.hpp"
 #include "sweep/sweep_metrics.hpp"
+#include "sweep/sweep_records.hpp"
 #include "sweep/sweep_ranking.hpp"
 #include "sweep/variants.hpp"
 #include "support/cli_run.hpp"
@@ -183,4 +184,25 @@ TEST_CASE("a sweep file states its tie tolerance, tie-break and Pareto view, eac
   CHECK(parse_pareto("a:lowest, b") == std::vector<std::string>{"a:lowest", "b"});
   CHECK_THROWS_AS(parse_pareto("a"), InputError);
   CHECK_THROWS_AS(parse_pareto("a,b,c"), InputError);
+}
+
+TEST_CASE("sweep.json keeps the sweep file's ranking for collect, and one written without it reads as unstated") {
+  const fs::path dir = tf::testing::fresh_folder("manifest_ranking");
+  fs::create_directories(dir);
+  Manifest m{"s.toml", "t", "b.toml", {"peak_field_ripple", 0.02, "fundamental_T", {"torque_ripple", "torque_mean_N_m"}}, {"k"},
+             {{"v1", {"1"}, ""}}};
+  write_manifest(dir, m);
+  const Manifest back = read_manifest(dir);
+  CHECK(back.ranking.rank_by == "peak_field_ripple");
+  REQUIRE(back.ranking.tolerance.has_value());
+  CHECK(*back.ranking.tolerance == 0.02);
+  CHECK(back.ranking.tie_break == "fundamental_T");
+  CHECK(back.ranking.pareto == m.ranking.pareto);
+  // The sweep.json of a turnfield before ties and Pareto views.
+  std::ofstream(dir / "sweep.json") << R"({"sweep_of": "turnfield", "sweep_file": "s", "title": "t", "base_case": "b",
+    "rank_by": "", "parameters": ["k"], "variants": [{"id": "v1", "inputs": ["1"], "problem": ""}]})";
+  const Manifest old = read_manifest(dir);
+  CHECK_FALSE(old.ranking.tolerance.has_value());
+  CHECK(old.ranking.tie_break.empty());
+  CHECK(old.ranking.pareto.empty());
 }
