@@ -198,9 +198,7 @@ int main(int argc, char** argv) {
       std::vector<fs::path> dirs(collect_dirs.begin(), collect_dirs.end());
       const fs::path out = out_dir.empty() ? dirs.front() : fs::path(out_dir);
       check_out_folder(out);
-      const tf::sweep::RankSpec stated = ranking.stated(collect);
-      tf::sweep::check_rank_options(stated);
-      return tf::sweep::collect_sweep({dirs, out, stated}, std::cout);
+      return tf::sweep::collect_sweep({dirs, out, ranking.stated(collect)}, std::cout);
     });
 
   if (compare->parsed())

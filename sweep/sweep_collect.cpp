@@ -127,6 +127,7 @@ void print_ranking(std::ostream& out, const post::SweepTable& t) {
 
 post::SweepTable collect_table(const CollectOptions& o) {
   if (o.dirs.empty()) throw input::InputError("collect: no folder given; expected the --out folders of the sweep's shards");
+  check_rank_options(o.ranking);
   const Manifest m = read_manifest(o.dirs.front());
   for (std::size_t i = 1; i < o.dirs.size(); ++i) {
     const Manifest other = read_manifest(o.dirs[i]);
@@ -181,9 +182,14 @@ int collect_sweep(const CollectOptions& o, std::ostream& out) {
   write_sweep_csv(o.out_dir / "sweep_summary.csv", t);
   if (best) copy_best(o.out_dir, o.out_dir / best->variant);
   post::write_sweep_report(o.out_dir, t,
-                           best ? fmt::format("The best variant by {}, {}, is copied whole to best_variant/: its "
+                           best ? fmt::format("The best variant by {}{}, {}, is copied whole to best_variant/: its "
                                               "report.html, and field.pvd to open in any VTK viewer.",
-                                              t.metrics[static_cast<std::size_t>(t.rank_by)].key, best->variant)
+                                              t.metrics[static_cast<std::size_t>(t.rank_by)].key,
+                                              best->tied_with_best && t.tie_break >= 0
+                                                  ? " and, among the variants tied with it, by " +
+                                                        t.metrics[static_cast<std::size_t>(t.tie_break)].key
+                                                  : "",
+                                              best->variant)
                                 : "No variant could be ranked, so none is copied.");
   print_ranking(out, t);
   out << fmt::format("sweep: {} variants: {} ok, {} failed or invalid or missing; summary in {} and {}{}\n",

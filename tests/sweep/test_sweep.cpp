@@ -311,4 +311,23 @@ TEST_CASE("a sweep's command line refuses what it cannot do, with exit status 2"
   const auto r = turnfield("collect " + reference_run().out.string() + " --rank-by torque");
   CHECK(r.status == 2);
   CHECK(r.output.find("no such metric") != std::string::npos);
+  // The tie and Pareto options, checked before anything runs.
+  const std::vector<std::pair<std::string, std::string>> bad = {
+      {"--rank-tolerance 1.5", "--rank-tolerance 1.5: expected a relative tolerance >= 0 and < 1"},
+      {"--rank-tolerance -0.1", "--rank-tolerance -0.1: expected a relative tolerance"},
+      {"--tie-break harmonic", "--tie-break harmonic: no such metric"},
+      {"--pareto fundamental_T", "--pareto fundamental_T: expected two metrics, X,Y"},
+      {"--pareto fundamental_T,fundamental_T:lowest", "one metric twice"},
+      {"--pareto fundamental_T,ripple", "--pareto ripple: no such metric"}};
+  for (const auto& [option, message] : bad) {
+    INFO(option);
+    const fs::path out = fresh_folder("sweep_bad_ranking_option");
+    const auto s = turnfield("sweep " + kStudy + " --out " + out.string() + " " + option);
+    CHECK(s.status == 2);
+    CHECK(s.output.find(message) != std::string::npos);
+    CHECK_FALSE(fs::exists(out));
+    const auto c = turnfield("collect " + reference_run().out.string() + " --out " + out.string() + " " + option);
+    CHECK(c.status == 2);
+    CHECK(c.output.find(message) != std::string::npos);
+  }
 }
