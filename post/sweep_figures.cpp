@@ -129,30 +129,30 @@ std::string listed(const std::vector<std::string>& items) {
   return fmt::format("{} and {}", fmt::join(items.begin(), items.end() - 1, commas ? "; " : ", "), items.back());
 }
 
-/// The legend of curves drawn as one: "pitch=5: phases=2 and 3 coincide" (the common part
-/// first, then what differs; one key's values only once).
+/// The legend of curves drawn as one: "coil_pitch=5: opening=0.002 and 0.003 coincide" (the
+/// parts all names share first, then what differs; one key's name only once).
 std::string coincide_name(const std::vector<std::string>& names) {
   std::vector<std::vector<std::string>> parts;
   for (const auto& n : names) parts.push_back(split(n, ", "));
+  const auto shared = [&](const std::string& part) {
+    return std::all_of(parts.begin(), parts.end(), [&](const auto& q) { return std::find(q.begin(), q.end(), part) != q.end(); });
+  };
   std::vector<std::string> common, differing;
-  for (std::size_t p = 0; p < parts.front().size(); ++p) {
-    const bool same = std::all_of(parts.begin(), parts.end(), [&](const auto& q) { return q.size() == parts.front().size() && q[p] == parts.front()[p]; });
-    if (same) common.push_back(parts.front()[p]);
-  }
-  std::string key;  // the one key in which they differ, if it is one
+  for (const auto& part : parts.front())
+    if (shared(part)) common.push_back(part);
   for (const auto& q : parts) {
     std::vector<std::string> rest;
     for (const auto& part : q)
-      if (std::find(common.begin(), common.end(), part) == common.end()) rest.push_back(part);
-    const std::string joined = fmt::format("{}", fmt::join(rest, ", "));
-    const auto eq = joined.find('=');
-    const bool one_key = rest.size() == 1 && eq != std::string::npos && (key.empty() || joined.substr(0, eq) == key);
-    if (one_key && differing.empty()) key = joined.substr(0, eq);
-    if (!one_key) key = "\n";  // mixed: keep each whole
-    differing.push_back(joined);
+      if (!shared(part)) rest.push_back(part);
+    differing.push_back(fmt::format("{}", fmt::join(rest, ", ")));
   }
-  if (!key.empty() && key != "\n")
-    for (std::size_t d = 1; d < differing.size(); ++d) differing[d] = differing[d].substr(key.size() + 1);
+  // They differ in one key only ("opening=0.002", "opening=0.003"): name it once.
+  const std::string key = differing.front().substr(0, differing.front().find('=') + 1);
+  const bool one_key = !key.empty() && std::all_of(differing.begin(), differing.end(), [&](const std::string& d) {
+    return d.rfind(key, 0) == 0 && d.find(", ") == std::string::npos;
+  });
+  if (one_key)
+    for (std::size_t d = 1; d < differing.size(); ++d) differing[d] = differing[d].substr(key.size());
   const std::string head = common.empty() ? "" : fmt::format("{}: ", fmt::join(common, ", "));
   return head + listed(differing) + " coincide";
 }

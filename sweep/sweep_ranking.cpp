@@ -66,7 +66,9 @@ void mark_pareto(post::SweepTable& t, const std::vector<std::string>& specs) {
   t.pareto = {};
   for (auto& r : t.rows) r.pareto_optimal = false;
   if (specs.empty()) return;
-  const MetricChoice x = choose(t, specs.at(0), "Pareto metric"), y = choose(t, specs.at(1), "Pareto metric");
+  if (specs.size() != 2)
+    throw input::InputError(fmt::format("Pareto view of {}: expected two metrics, X and Y", fmt::join(specs, ", ")));
+  const MetricChoice x = choose(t, specs[0], "Pareto metric"), y = choose(t, specs[1], "Pareto metric");
   t.pareto = {x.column, y.column, x.lower_is_better, y.lower_is_better};
   // Deb's definitions are for minimisation; a metric to be maximised is minimised with its sign turned.
   std::vector<std::array<double, 2>> points;

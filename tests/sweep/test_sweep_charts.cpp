@@ -90,6 +90,10 @@ TEST_CASE("series that coincide are drawn once and the legend says they coincide
   // Too long for one line: the legend wraps it.
   CHECK(legend_text(by_pitch.svg) == "phases=2, opening=0.002; phases=2, opening=0.003; phases=3, opening=0.002 and "
                                      "phases=3, opening=0.003 coincide");
+  // On a numeric axis too: against the opening, the phases' lines of one pitch coincide.
+  const auto& by_opening = figure(page, "fundamental_T_vs_stator_slot_opening");
+  CHECK(data_paths(by_opening.svg).size() == 2);
+  CHECK(legend_text(by_opening.svg) == "coil_pitch=5: phases=2 and 3 coincide coil_pitch=6: phases=2 and 3 coincide");
   // Series that differ anywhere are not merged.
   SweepTable t = grid();
   t.rows[0].metrics[0] = 0.661;

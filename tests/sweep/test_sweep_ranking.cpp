@@ -121,6 +121,7 @@ TEST_CASE("a ranking, tie-break or Pareto metric that no variant reports is refu
   CHECK(message_of(t, {"peak_field_ripple", std::nullopt, "", {"torque_ripple", "peak_field_ripple"}})
             .find("Pareto metric torque_ripple") != std::string::npos);
   CHECK(message_of(t, {"ripple", std::nullopt, "", {}}).find("no such metric") != std::string::npos);
+  CHECK(message_of(t, {"peak_field_ripple", std::nullopt, "", {"fundamental_T"}}).find("expected two metrics") != std::string::npos);
   // Nothing ran: nothing to rank, which is not the ranking's fault.
   SweepTable none = t;
   for (auto& r : none.rows) r.status = "failed";
