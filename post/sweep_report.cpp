@@ -12,6 +12,10 @@
 namespace tf::post {
 namespace {
 
+// The marks of the table's tie and Pareto columns, with no-break spaces so each stays on one line.
+constexpr const char* kTiedMark = "=\u00a0tied";
+constexpr const char* kOptimalMark = "◆\u00a0optimal";
+
 /// Rows in report order: by rank, then the unranked in the sweep's order.
 std::vector<const SweepRow*> report_order(const SweepTable& t) {
   std::vector<const SweepRow*> rows;
@@ -39,8 +43,8 @@ Table ranked_table(const SweepTable& t) {
     for (const auto& v : r->inputs) row.emplace_back(v);
     row.resize(2 + t.parameters.size());
     row.emplace_back(r->status);
-    row.emplace_back(r->tied_with_best ? "= tied" : "");
-    if (t.pareto.shown()) row.emplace_back(!in_pareto_view(t, *r) ? "" : r->pareto_optimal ? "◆ optimal" : "dominated");
+    row.emplace_back(r->tied_with_best ? kTiedMark : "");
+    if (t.pareto.shown()) row.emplace_back(!in_pareto_view(t, *r) ? "" : r->pareto_optimal ? kOptimalMark : "dominated");
     for (std::size_t k = 0; k < t.metrics.size(); ++k) row.emplace_back(k < r->metrics.size() ? metric_text(r->metrics[k]) : "–");
     row.emplace_back(r->message);
     table.rows.push_back(std::move(row));

@@ -236,7 +236,7 @@ TEST_CASE("end to end: full-pitch variants tie on the winding factor and the har
                       "harmonic distortion") != std::string::npos);
   const std::string html = text_of(out / "report.html");
   CHECK(html.find("Variants within 0.1 % of the best winding_factor") != std::string::npos);
-  CHECK(html.find("= tied") != std::string::npos);
+  CHECK(html.find("=\u00a0tied") != std::string::npos);
 }
 
 TEST_CASE("end to end: the Pareto column flags exactly the variants no other variant dominates") {
@@ -265,7 +265,7 @@ TEST_CASE("end to end: the Pareto column flags exactly the variants no other var
   CHECK(optimal >= 1);
   CHECK(optimal < 5);  // the study's designs do trade off: not all are optimal
   CHECK(fs::exists(out / "figures" / "pareto_fundamental_T_vs_peak_field_ripple.svg"));
-  CHECK(text_of(out / "report.html").find("◆ optimal") != std::string::npos);
+  CHECK(text_of(out / "report.html").find("◆\u00a0optimal") != std::string::npos);
 }
 
 TEST_CASE("collect refuses shards cut differently, naming the folders and their cuts") {
