@@ -111,8 +111,8 @@ void print_ranking(std::ostream& out, const post::SweepTable& t) {
   for (const auto* r : order) {
     std::vector<std::string> inputs;
     for (std::size_t k = 0; k < t.parameters.size(); ++k) inputs.push_back(t.parameters[k] + " = " + r->inputs[k]);
-    out << fmt::format("{:>4}{} {}  {:<12.6g}  {}\n", r->rank, r->tied_with_best ? "=" : " ", r->variant,
-                       r->metrics[static_cast<std::size_t>(t.rank_by)], fmt::join(inputs, ", "));
+    out << fmt::format("{:>4}  {}  {:<12.6g}  {}{}\n", r->rank, r->variant, r->metrics[static_cast<std::size_t>(t.rank_by)],
+                       fmt::join(inputs, ", "), r->tied_with_best ? "  = tied" : "");
   }
   if (t.pareto.shown()) {
     std::vector<std::string> front;
