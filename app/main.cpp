@@ -71,6 +71,29 @@ const CLI::Validator kFinite(
     },
     "FINITE");
 
+/// --rank-by, --rank-tolerance, --tie-break and --pareto, which sweep and collect share.
+struct RankingOptions {
+  tf::sweep::RankSpec spec;
+  double tolerance = 0.0;
+  std::string pareto;
+
+  void add_to(CLI::App* command) {
+    command->add_option("--rank-by", spec.rank_by, "metric to rank by: name, name:lowest or name:highest");
+    command->add_option("--rank-tolerance", tolerance,
+                        "relative: variants this close to the best are tied with it (default 0.005 = 0.5 %)")
+        ->check(kFinite);
+    command->add_option("--tie-break", spec.tie_break, "metric ordering the variants tied with the best");
+    command->add_option("--pareto", pareto, "two metrics X,Y to weigh, e.g. torque_ripple:lowest,torque_mean_N_m");
+  }
+  /// What the command line states; throws InputError for a --pareto that is not two metrics.
+  tf::sweep::RankSpec stated(const CLI::App* command) const {
+    tf::sweep::RankSpec s = spec;
+    if (command->count("--rank-tolerance") > 0) s.tolerance = tolerance;
+    if (!pareto.empty()) s.pareto = tf::sweep::parse_pareto(pareto);
+    return s;
+  }
+};
+
 /// Runs `action`, whose int result is the exit status; exceptions become messages and 2 or 1.
 template <class Action>
 int guarded(Action action) {
@@ -143,7 +166,8 @@ int main(int argc, char** argv) {
   compare->add_option("--steps", steps, "override every case's number of steps")->check(CLI::Range(2, 100000));
 
   tf::sweep::SweepOptions sweep_options;
-  std::string shard = "1/1", rank_by;
+  std::string shard = "1/1";
+  RankingOptions ranking;
   std::vector<std::string> collect_dirs;
   auto* sweep = cli.add_subcommand("sweep", "run every variant of a sweep file, several at a time, and rank them");
   sweep->add_option("SWEEP_FILE", case_path, "sweep file (TOML): a base case and the keys to vary")->required();
@@ -153,11 +177,11 @@ int main(int argc, char** argv) {
   sweep->add_flag("--dry-run", sweep_options.dry_run, "list the variants and any invalid ones; run nothing");
   sweep->add_option("--shard", shard, "run only share k of N (k/N), for several machines; then collect");
   sweep->add_flag("--retry-failed", sweep_options.retry_failed, "run again the variants recorded as failed");
-  sweep->add_option("--rank-by", rank_by, "metric to rank by: name, name:lowest or name:highest");
+  ranking.add_to(sweep);
   auto* collect = cli.add_subcommand("collect", "merge the folders of a sweep's shards into one summary and report");
   collect->add_option("DIRS", collect_dirs, "the shards' output folders")->required()->expected(1, 100000);
   collect->add_option("--out", out_dir, "where the summary goes (default: the first folder)");
-  collect->add_option("--rank-by", rank_by, "metric to rank by: name, name:lowest or name:highest");
+  ranking.add_to(collect);
 
   try {
     cli.parse(argc, argv);
@@ -170,7 +194,7 @@ int main(int argc, char** argv) {
   if (sweep->parsed())
     return guarded([&] {
       sweep_options.shard = parse_shard(shard);
-      sweep_options.rank_by = rank_by;
+      sweep_options.ranking = ranking.stated(sweep);
       sweep_options.out_dir = out_dir.empty() ? default_out_dir(case_path) : fs::path(out_dir);
       check_out_folder(sweep_options.out_dir);
       return tf::sweep::run_sweep(case_path, sweep_options, std::cout, std::cerr);
@@ -180,7 +204,7 @@ int main(int argc, char** argv) {
       std::vector<fs::path> dirs(collect_dirs.begin(), collect_dirs.end());
       const fs::path out = out_dir.empty() ? dirs.front() : fs::path(out_dir);
       check_out_folder(out);
-      return tf::sweep::collect_sweep({dirs, out, rank_by}, std::cout);
+      return tf::sweep::collect_sweep({dirs, out, ranking.stated(collect)}, std::cout);
     });
 
   if (compare->parsed())

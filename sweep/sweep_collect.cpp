@@ -1,5 +1,6 @@
 #include "sweep/sweep_collect.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <fstream>
 #include <sstream>
@@ -74,17 +75,49 @@ void copy_best(const fs::path& out_dir, const fs::path& from) {
   if (ec) throw post::OutputError(fmt::format("could not rename {}: {}", partial.string(), ec.message()));
 }
 
+/// The shard specs ("1/2") the variants of `dir` were run with, from their records.
+std::vector<std::string> shard_specs(const fs::path& dir, const Manifest& m) {
+  std::vector<std::string> specs;
+  for (const auto& e : m.variants)
+    if (const auto r = read_variant_record(dir / e.id); r && !r->shard.empty())
+      if (std::find(specs.begin(), specs.end(), r->shard) == specs.end()) specs.push_back(r->shard);
+  std::sort(specs.begin(), specs.end());
+  return specs;
+}
+
+/// Folders whose shards were cut into different numbers N overlap and leave gaps (shard 1/2 takes
+/// variants 1, 3, 5, ..., shard 2/3 takes 2, 5, 8, ...): refuse them rather than merge by chance.
+void check_one_cut(const std::vector<fs::path>& dirs, const Manifest& m) {
+  std::vector<std::string> described, counts;
+  for (const auto& dir : dirs) {
+    const std::vector<std::string> specs = shard_specs(dir, m);
+    for (const auto& spec : specs) {
+      const std::string n = spec.substr(spec.find('/') + 1);
+      if (std::find(counts.begin(), counts.end(), n) == counts.end()) counts.push_back(n);
+    }
+    described.push_back(fmt::format("{} (shard {})", dir.string(), specs.empty() ? "unknown" : fmt::format("{}", fmt::join(specs, ", "))));
+  }
+  if (counts.size() > 1)
+    throw input::InputError(fmt::format("collect: the folders were cut into shards differently: {}; expected the "
+                                        "shards of one cut (the same N in --shard k/N), or run the sweep again into one folder",
+                                        fmt::join(described, "; ")));
+}
+
 void print_ranking(std::ostream& out, const post::SweepTable& t) {
-  const auto& by = t.metrics[static_cast<std::size_t>(t.rank_by)];
-  out << fmt::format("ranked by {} ({} first):\n", by.key, by.lower_is_better ? "lowest" : "highest");
+  out << post::ranking_sentence(t) << '\n';
   std::vector<const post::SweepRow*> order;
   for (const auto& r : t.rows) if (r.rank > 0) order.push_back(&r);
   std::sort(order.begin(), order.end(), [](auto* a, auto* b) { return a->rank < b->rank; });
   for (const auto* r : order) {
     std::vector<std::string> inputs;
     for (std::size_t k = 0; k < t.parameters.size(); ++k) inputs.push_back(t.parameters[k] + " = " + r->inputs[k]);
-    out << fmt::format("{:>4}  {}  {:<12.6g}  {}\n", r->rank, r->variant, r->metrics[static_cast<std::size_t>(t.rank_by)],
-                       fmt::join(inputs, ", "));
+    out << fmt::format("{:>4}  {}  {:<12.6g}  {}{}\n", r->rank, r->variant, r->metrics[static_cast<std::size_t>(t.rank_by)],
+                       fmt::join(inputs, ", "), r->tied_with_best ? "  = tied" : "");
+  }
+  if (t.pareto.shown()) {
+    std::vector<std::string> front;
+    for (const auto& r : t.rows) if (r.pareto_optimal) front.push_back(r.variant);
+    out << fmt::format("{}: {}\n", post::pareto_sentence(t), fmt::join(front, ", "));
   }
   for (const auto& r : t.rows)
     if (r.status != "ok") out << fmt::format("   -  {}  {}: {}\n", r.variant, r.status, r.message);
@@ -94,6 +127,7 @@ void print_ranking(std::ostream& out, const post::SweepTable& t) {
 
 post::SweepTable collect_table(const CollectOptions& o) {
   if (o.dirs.empty()) throw input::InputError("collect: no folder given; expected the --out folders of the sweep's shards");
+  check_rank_options(o.ranking);
   const Manifest m = read_manifest(o.dirs.front());
   for (std::size_t i = 1; i < o.dirs.size(); ++i) {
     const Manifest other = read_manifest(o.dirs[i]);
@@ -103,9 +137,12 @@ post::SweepTable collect_table(const CollectOptions& o) {
       throw input::InputError(fmt::format("{}: holds another sweep ({}) than {} ({}); collect the shards of one sweep",
                                    o.dirs[i].string(), other.sweep_file, o.dirs.front().string(), m.sweep_file));
   }
+  if (o.dirs.size() > 1) check_one_cut(o.dirs, m);
   post::SweepTable t{m.title, m.sweep_file, m.base_case, m.parameters, sweep_metric_columns(), {}, -1};
   for (const auto& e : m.variants) t.rows.push_back(collect_row(e, o.dirs, t.metrics.size()));
-  rank_rows(t, !o.rank_by.empty() ? o.rank_by : !m.rank_by.empty() ? m.rank_by : "fundamental_T");
+  RankSpec ranking = overridden(m.ranking, o.ranking);
+  if (ranking.rank_by.empty()) ranking.rank_by = "fundamental_T";
+  rank_rows(t, ranking);
   return t;
 }
 
@@ -113,13 +150,14 @@ void write_sweep_csv(const fs::path& path, const post::SweepTable& t) {
   post::write_atomically(path, [&](std::ostream& o) {
     o << "variant";
     for (const auto& p : t.parameters) o << ',' << csv_field(p);
-    o << ",status,rank";
+    o << ",status,rank,tied_with_best,pareto_optimal";
     for (const auto& m : t.metrics) o << ',' << m.key;
     o << ",message\n";
     for (const auto& r : t.rows) {
       o << r.variant;
       for (const auto& v : r.inputs) o << ',' << csv_field(v);
-      o << ',' << r.status << ',' << (r.rank > 0 ? std::to_string(r.rank) : "");
+      o << ',' << r.status << ',' << (r.rank > 0 ? std::to_string(r.rank) : "") << ',' << (r.tied_with_best ? "yes" : "")
+        << ',' << (!in_pareto_view(t, r) ? "" : r.pareto_optimal ? "yes" : "no");
       for (const double v : r.metrics) o << ',' << (std::isfinite(v) ? fmt::format("{:.6g}", v) : "");
       o << ',' << csv_field(r.message) << '\n';
     }
@@ -144,24 +182,22 @@ int collect_sweep(const CollectOptions& o, std::ostream& out) {
   write_sweep_csv(o.out_dir / "sweep_summary.csv", t);
   if (best) copy_best(o.out_dir, o.out_dir / best->variant);
   post::write_sweep_report(o.out_dir, t,
-                           best ? fmt::format("The best variant by {}, {}, is copied whole to best_variant/: its "
+                           best ? fmt::format("The best variant by {}{}, {}, is copied whole to best_variant/: its "
                                               "report.html, and field.pvd to open in any VTK viewer.",
-                                              t.metrics[static_cast<std::size_t>(t.rank_by)].key, best->variant)
+                                              t.metrics[static_cast<std::size_t>(t.rank_by)].key,
+                                              best->tied_with_best && t.tie_break >= 0
+                                                  ? " and, among the variants tied with it, by " +
+                                                        t.metrics[static_cast<std::size_t>(t.tie_break)].key
+                                                  : "",
+                                              best->variant)
                                 : "No variant could be ranked, so none is copied.");
   print_ranking(out, t);
   out << fmt::format("sweep: {} variants: {} ok, {} failed or invalid or missing; summary in {} and {}{}\n",
                      t.rows.size(), ok, t.rows.size() - ok, (o.out_dir / "sweep_summary.csv").string(),
                      (o.out_dir / "report.html").string(),
                      best ? fmt::format(", best variant copied to {}", (o.out_dir / "best_variant").string()) : "");
-  // A metric no finished variant reports (e.g. torque of a study whose rotor does not turn) ranks
-  // nothing: say so and fail, rather than leave an empty ranking that looks like a result.
-  const bool unranked = best == nullptr && ok > 0;
-  if (unranked)
-    out << fmt::format("error: rank by {}: none of the {} variants that ran reports it (their study does not "
-                       "produce it); sweep_summary.csv lists the metrics they do report\n",
-                       t.metrics[static_cast<std::size_t>(t.rank_by)].key, ok);
   out << post::kSafetyCaution << '\n';
-  return ok == t.rows.size() && !unranked ? 0 : 1;
+  return ok == t.rows.size() ? 0 : 1;
 }
 
 }  // namespace tf::sweep

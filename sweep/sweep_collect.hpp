@@ -9,24 +9,27 @@
 #include <vector>
 
 #include "post/sweep_table.hpp"
+#include "sweep/sweep_ranking.hpp"
 
 namespace tf::sweep {
 
 struct CollectOptions {
   std::vector<std::filesystem::path> dirs;  ///< folders holding sweep.json and variant folders
   std::filesystem::path out_dir;            ///< where the summary goes
-  std::string rank_by;                      ///< metric spec (sweep_metrics.hpp); empty = the sweep file's, else fundamental_T
+  RankSpec ranking;  ///< what it states overrides the sweep file's; rank_by defaults to fundamental_T
 };
 
-/// Builds the table of every variant of the sweep the folders share. Throws input::InputError when a
-/// folder is not a sweep's or holds another sweep.
+/// Builds and ranks the table of every variant of the sweep the folders share. Throws
+/// input::InputError when a folder is not a sweep's or holds another sweep, when folders were cut
+/// into shards differently (--shard k/N with different N), or for a metric no variant reports.
 post::SweepTable collect_table(const CollectOptions& options);
 
 /// Writes the summary files and prints the ranked table and a summary line. Returns 0 when every
 /// variant is ok, 1 when any failed, was invalid or is missing.
 int collect_sweep(const CollectOptions& options, std::ostream& out);
 
-/// sweep_summary.csv: variant, the varied keys, status, rank, the metrics, message. Numbers to 6
+/// sweep_summary.csv: variant, the varied keys, status, rank, tied_with_best, pareto_optimal, the
+/// metrics, message. Numbers to 6
 /// significant digits, no times: equal sweeps give byte-equal files however they were sharded.
 void write_sweep_csv(const std::filesystem::path& path, const post::SweepTable& t);
 

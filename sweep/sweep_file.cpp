@@ -33,8 +33,9 @@ void only_keys(const Document& doc, const toml::table& table, std::string_view w
   for (const auto& [key, node] : table) {
     if (std::find(keys.begin(), keys.end(), key.str()) != keys.end()) continue;
     const std::string guess = nearest(key.str(), keys);
-    fail(doc, line_of(node), fmt::format("{}{}", where, key.str()), "unknown key",
-         guess.empty() ? fmt::format("one of: {}", fmt::join(keys, ", ")) : fmt::format("'{}'", guess));
+    fail(doc, line_of(node), fmt::format("{}{}", where, key.str()),
+         guess.empty() ? "unknown key" : fmt::format("unknown key (did you mean '{}'?)", guess),
+         fmt::format("one of: {}", fmt::join(keys, ", ")));
   }
 }
 
@@ -128,13 +129,29 @@ VariedKey read_varied(const Document& doc, const toml::node& entry, std::size_t 
   return v;
 }
 
+/// The dotted names of every single value the base case sets ("stator.slot.opening").
+void value_keys(const toml::table& table, const std::string& prefix, std::vector<std::string>& out) {
+  for (const auto& [key, node] : table) {
+    const std::string dotted = prefix + std::string(key.str());
+    if (const toml::table* inner = node.as_table()) value_keys(*inner, dotted + ".", out);
+    else if (!node.is_array()) out.push_back(dotted);
+  }
+}
+
 /// Every varied and fixed key must be a single value set in the base case.
 void check_against_base(const Document& sweep_doc, const SweepFile& s) {
   const Document base = input::parse_document(s.base_case, s.base_text);
+  std::vector<std::string> settable;
+  value_keys(base.root, "", settable);
   const auto check = [&](const std::string& key, int line) {
     const toml::node* node = base.root.at_path(key).node();
-    if (!node) fail(sweep_doc, line, key, fmt::format("not set in the base case {}", s.base_case),
-                    "a key the base case sets (set it there, so the sweep has a value to replace)");
+    if (!node) {
+      const std::string guess = nearest(key, settable);
+      fail(sweep_doc, line, key,
+           fmt::format("not set in the base case {}{}", s.base_case,
+                       guess.empty() ? "" : fmt::format(" (did you mean '{}'?)", guess)),
+           "a key the base case sets (set it there, so the sweep has a value to replace)");
+    }
     if (node->is_table() || node->is_array())
       fail(sweep_doc, line, key, "is a table or a list in the base case", "a key holding one number, string or true/false");
   };
@@ -155,11 +172,43 @@ void check_variant_count(const Document& doc, const SweepFile& s) {
   }
 }
 
+/// A metric spec at `key`, checked against the metrics there are.
+std::string metric_spec(const Fields& root, const char* key) {
+  const std::string spec = root.text_or(key, "");
+  if (const auto p = rank_problem(spec); p && root.has(key)) root.fail(key, p->what, p->expected);
+  return spec;
+}
+
+/// rank_by, rank_tolerance, tie_break and pareto, each checked where it is written.
+RankSpec read_ranking(const Document& doc, const Fields& root) {
+  RankSpec r{metric_spec(root, "rank_by"), std::nullopt, metric_spec(root, "tie_break"), {}};
+  if (root.has("rank_tolerance")) {
+    r.tolerance = root.real("rank_tolerance", {0.0, 1.0, false, true});
+  }
+  if (root.has("pareto")) {
+    const toml::array& pair = root.array("pareto", "two metrics, e.g. [\"peak_field_ripple:lowest\", \"fundamental_T\"]");
+    const auto expected = "two different metrics, e.g. [\"peak_field_ripple:lowest\", \"fundamental_T:highest\"]";
+    if (pair.size() != 2) root.fail("pareto", fmt::format("has {} entries", pair.size()), expected);
+    for (std::size_t i = 0; i < 2; ++i) {
+      const toml::node& n = *pair.get(i);
+      const std::string subject = fmt::format("pareto[{}]", i);
+      if (!n.is_string()) fail(doc, line_of(n), subject, "not a string", expected);
+      const std::string spec = n.as_string()->get();
+      if (const auto p = rank_problem(spec)) fail(doc, line_of(n), subject + " = \"" + spec + "\"", p->what, p->expected);
+      r.pareto.push_back(spec);
+    }
+    if (split_metric_spec(r.pareto[0]).first == split_metric_spec(r.pareto[1]).first)
+      root.fail("pareto", "names one metric twice", expected);
+  }
+  return r;
+}
+
 }  // namespace
 
 SweepFile read_sweep_file(const std::string& path) {
   const Document doc = input::parse_document(path, input::read_input_file(path, "sweep file"));
-  const Fields root(doc, {"title", "base_case", "combine", "rank_by", "fixed", "vary"});
+  const Fields root(doc, {"title", "base_case", "combine", "rank_by", "rank_tolerance", "tie_break", "pareto",
+                          "fixed", "vary"});
   SweepFile s;
   s.path = path;
   s.title = root.text_or("title", fs::path(path).stem().string());
@@ -172,8 +221,7 @@ SweepFile read_sweep_file(const std::string& path) {
     root.fail("base_case", e.what(), "a readable case file");
   }
   s.combine = root.choice_or("combine", {"grid", "zip"}, 0) == 0 ? Combine::grid : Combine::zip;
-  s.rank_by = root.text_or("rank_by", "");
-  if (const auto p = rank_problem(s.rank_by); p && !s.rank_by.empty()) root.fail("rank_by", p->what, p->expected);
+  s.ranking = read_ranking(doc, root);
   if (const toml::table* fixed = doc.root.get_as<toml::table>("fixed")) read_fixed(doc, *fixed, "", s.fixed);
   const toml::array& vary = root.array("vary", "[[vary]] tables");
   if (vary.empty()) root.fail("vary", "no key to vary", "at least one [[vary]] table");

@@ -5,7 +5,10 @@
 //   title = "Slot opening against coil pitch"
 //   base_case = "pump24_three_phase.toml"     # relative to the sweep file
 //   combine = "grid"                          # or "zip": the i-th values of every key together
-//   rank_by = "peak_field_ripple"             # optional; see sweep_metrics.hpp
+//   rank_by = "peak_field_ripple"             # optional; metrics in sweep_metrics.hpp
+//   rank_tolerance = 0.005                    # optional: within 0.5 % of the best is a tie
+//   tie_break = "harmonic_distortion"         # optional: orders the variants tied with the best
+//   pareto = ["peak_field_ripple:lowest", "fundamental_T:highest"]   # optional: x and y of a Pareto view
 //   [fixed]                                   # optional: the same change in every variant
 //   "study.field_files" = 4
 //   [[vary]]
@@ -20,6 +23,8 @@
 
 #include <string>
 #include <vector>
+
+#include "sweep/sweep_ranking.hpp"
 
 namespace tf::sweep {
 
@@ -46,7 +51,7 @@ struct SweepFile {
   Combine combine = Combine::grid;
   std::vector<VariedKey> varied;
   std::vector<FixedKey> fixed;
-  std::string rank_by;    ///< a metric key, possibly with ":lowest"/":highest"; empty = default
+  RankSpec ranking;       ///< rank_by, rank_tolerance, tie_break, pareto as the file states them
 };
 
 /// The most variants a sweep file may make; more is almost surely a typo in a range.
@@ -55,7 +60,8 @@ inline constexpr std::size_t kMaxVariants = 100000;
 /// Reads and checks a sweep file (and reads its base case's text). Throws input::InputError naming the
 /// file, line and key: unknown keys, a missing base case, empty or mixed-type value lists, bad
 /// ranges, zipped lists of different lengths, keys the base case does not set or sets to a table
-/// or an array, more than kMaxVariants variants.
+/// or an array, unknown metrics, more than kMaxVariants variants. A misspelt key gets the nearest
+/// one suggested ("did you mean").
 SweepFile read_sweep_file(const std::string& path);
 
 }  // namespace tf::sweep

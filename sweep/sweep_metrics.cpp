@@ -2,12 +2,11 @@
 
 #include <algorithm>
 #include <cmath>
-#include <numeric>
 
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
-#include "input/input_error.hpp"
+#include "input/toml_fields.hpp"
 
 namespace tf::sweep {
 namespace {
@@ -21,12 +20,6 @@ const std::vector<std::string>& metric_pointers() {
       "/field/rotation_uniformity_deg", "/field/backward_forward_ratio", "/field/harmonic_distortion",
       "/winding/winding_factor",    "/torque/arkkio/mean_N_m",           "/torque/arkkio/ripple"};
   return p;
-}
-
-/// "name:direction" as its two parts (direction empty when not given).
-std::pair<std::string, std::string> split_spec(const std::string& spec) {
-  const auto colon = spec.find(':');
-  return {spec.substr(0, colon), colon == std::string::npos ? "" : spec.substr(colon + 1)};
 }
 
 }  // namespace
@@ -54,37 +47,22 @@ std::vector<double> read_metrics(const std::string& summary_json) {
 }
 
 std::optional<RankProblem> rank_problem(const std::string& spec) {
-  const auto [name, direction] = split_spec(spec);
+  const auto [name, direction] = split_metric_spec(spec);
   std::vector<std::string> keys;
   for (const auto& m : sweep_metric_columns()) keys.push_back(m.key);
-  if (std::find(keys.begin(), keys.end(), name) == keys.end())
-    return RankProblem{"no such metric", fmt::format("one of: {}", fmt::join(keys, ", "))};
+  if (std::find(keys.begin(), keys.end(), name) == keys.end()) {
+    const std::string guess = input::nearest(name, keys);
+    return RankProblem{guess.empty() ? "no such metric" : fmt::format("no such metric (did you mean '{}'?)", guess),
+                       fmt::format("one of: {}", fmt::join(keys, ", "))};
+  }
   if (!direction.empty() && direction != "lowest" && direction != "highest")
     return RankProblem{fmt::format("unknown direction '{}'", direction), "name, name:lowest or name:highest"};
   return std::nullopt;
 }
 
-void rank_rows(post::SweepTable& t, const std::string& spec) {
-  if (const auto p = rank_problem(spec))
-    throw input::InputError(fmt::format("rank by '{}': {}; expected {}", spec, p->what, p->expected));
-  const auto [name, direction] = split_spec(spec);
-  std::vector<std::string> keys;
-  for (const auto& m : t.metrics) keys.push_back(m.key);
-  const auto it = std::find(keys.begin(), keys.end(), name);
-  t.rank_by = static_cast<int>(it - keys.begin());
-  auto& column = t.metrics[static_cast<std::size_t>(t.rank_by)];
-  if (!direction.empty()) column.lower_is_better = direction == "lowest";
-  const auto col = static_cast<std::size_t>(t.rank_by);
-  std::vector<std::size_t> order;
-  for (std::size_t i = 0; i < t.rows.size(); ++i) {
-    t.rows[i].rank = 0;
-    if (t.rows[i].status == "ok" && std::isfinite(t.rows[i].metrics[col])) order.push_back(i);
-  }
-  std::stable_sort(order.begin(), order.end(), [&](std::size_t a, std::size_t b) {
-    const double x = t.rows[a].metrics[col], y = t.rows[b].metrics[col];
-    return column.lower_is_better ? x < y : x > y;
-  });
-  for (std::size_t r = 0; r < order.size(); ++r) t.rows[order[r]].rank = static_cast<int>(r + 1);
+std::pair<std::string, std::string> split_metric_spec(const std::string& spec) {
+  const auto colon = spec.find(':');
+  return {spec.substr(0, colon), colon == std::string::npos ? "" : spec.substr(colon + 1)};
 }
 
 }  // namespace tf::sweep

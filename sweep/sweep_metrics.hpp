@@ -1,8 +1,10 @@
 #pragma once
-// The headline numbers a sweep tabulates and ranks by, read from each variant's summary.json.
+// The headline numbers a sweep tabulates and ranks by, read from each variant's summary.json
+// (the ranking itself is in sweep_ranking.hpp).
 
 #include <optional>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "post/sweep_table.hpp"
@@ -24,9 +26,7 @@ struct RankProblem {
 };
 std::optional<RankProblem> rank_problem(const std::string& spec);
 
-/// Sets t.rank_by and each ok row's rank from a spec "name", "name:lowest" or "name:highest"
-/// (name: a column key; without a direction, the column's own). Rows whose value is NaN are not
-/// ranked; ties keep the sweep's order. Throws input::InputError for an unknown name or direction.
-void rank_rows(post::SweepTable& t, const std::string& spec);
+/// "name:direction" as its two parts (direction empty when not given).
+std::pair<std::string, std::string> split_metric_spec(const std::string& spec);
 
 }  // namespace tf::sweep

@@ -20,6 +20,7 @@ struct VariantRecord {
   std::string status;   ///< "ok", "failed" or "invalid"
   std::string message;  ///< empty when ok
   double seconds = 0.0;
+  std::string shard;    ///< "k/N" of the `turnfield sweep` that ran it ("1/1" unsharded); empty if unknown
 };
 
 struct ManifestEntry {
@@ -29,7 +30,8 @@ struct ManifestEntry {
 };
 
 struct Manifest {
-  std::string sweep_file, title, base_case, rank_by;
+  std::string sweep_file, title, base_case;
+  RankSpec ranking;  ///< as the sweep file states it
   std::vector<std::string> parameters;
   std::vector<ManifestEntry> variants;
 };

@@ -10,7 +10,6 @@
 #include "sweep/child_process.hpp"
 #include "input/input_error.hpp"
 #include "sweep/sweep_collect.hpp"
-#include "sweep/sweep_metrics.hpp"
 #include "sweep/sweep_records.hpp"
 #include "post/atomic_file.hpp"
 #include "solver/stopwatch.hpp"
@@ -90,7 +89,7 @@ void run_queue(const SweepFile& s, const std::vector<const Variant*>& queue, con
     if (it == running.end()) continue;
     const Variant& v = *it->second.variant;
     const fs::path dir = o.out_dir / v.id;
-    VariantRecord r{v.id, "ok", "", it->second.clock.seconds()};
+    VariantRecord r{v.id, "ok", "", it->second.clock.seconds(), shard_text(o.shard)};
     running.erase(it);
     std::error_code ec;
     if (end.exit_status != 0 || !fs::exists(dir / "summary.json", ec)) {
@@ -137,8 +136,7 @@ int dry_run(const SweepFile& s, const std::vector<Variant>& variants, const std:
 
 int run_sweep(const std::string& sweep_path, const SweepOptions& o, std::ostream& out, std::ostream& progress) {
   // A misspelt ranking is found before the first variant runs, not after the last.
-  if (const auto p = rank_problem(o.rank_by); p && !o.rank_by.empty())
-    throw input::InputError(fmt::format("--rank-by {}: {}; expected {}", o.rank_by, p->what, p->expected));
+  check_rank_options(o.ranking);
   const SweepFile s = read_sweep_file(sweep_path);
   const std::vector<Variant> variants = expand_variants(s);
   const std::vector<std::string> problems = validate(s, variants);
@@ -164,7 +162,7 @@ int run_sweep(const std::string& sweep_path, const SweepOptions& o, std::ostream
     if (problems[v.index].empty()) {
       queue.push_back(&v);
     } else {
-      write_variant_record(dir, {v.id, "invalid", problems[v.index], 0.0});
+      write_variant_record(dir, {v.id, "invalid", problems[v.index], 0.0, shard_text(o.shard)});
       ++tally.failed;
       out << "invalid: " << problems[v.index] << '\n';
     }
@@ -182,7 +180,7 @@ int run_sweep(const std::string& sweep_path, const SweepOptions& o, std::ostream
                        o.out_dir.string());
     return tally.failed > 0 ? 1 : 0;
   }
-  return collect_sweep({{o.out_dir}, o.out_dir, o.rank_by}, out);
+  return collect_sweep({{o.out_dir}, o.out_dir, o.ranking}, out);
 }
 
 }  // namespace tf::sweep

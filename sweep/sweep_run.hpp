@@ -7,6 +7,7 @@
 #include <ostream>
 #include <string>
 
+#include "sweep/sweep_ranking.hpp"
 #include "sweep/variants.hpp"
 
 namespace tf::sweep {
@@ -17,7 +18,7 @@ struct SweepOptions {
   Shard shard;                ///< this process's share; {1, 1} = all
   bool dry_run = false;       ///< list the variants and their problems; run nothing
   bool retry_failed = false;  ///< redo variants recorded as failed
-  std::string rank_by;        ///< overrides the sweep file's rank_by; empty = the sweep file's
+  RankSpec ranking;           ///< what it states overrides the sweep file's ranking keys
 };
 
 /// Runs (or lists) the sweep's variants; unsharded, then collects the summary and report.

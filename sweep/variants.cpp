@@ -108,4 +108,6 @@ bool in_shard(std::size_t index, const Shard& shard) {
   return static_cast<int>(index % static_cast<std::size_t>(shard.n)) == shard.k - 1;
 }
 
+std::string shard_text(const Shard& shard) { return fmt::format("{}/{}", shard.k, shard.n); }
+
 }  // namespace tf::sweep

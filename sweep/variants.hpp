@@ -32,5 +32,7 @@ struct Shard {
   int k = 1, n = 1;
 };
 bool in_shard(std::size_t index, const Shard& shard);
+/// "k/N", as --shard takes it.
+std::string shard_text(const Shard& shard);
 
 }  // namespace tf::sweep

@@ -9,6 +9,8 @@
 #include "input/input_error.hpp"
 #include "sweep/sweep_file.hpp"
 #include "sweep/sweep_metrics.hpp"
+#include "sweep/sweep_records.hpp"
+#include "sweep/sweep_ranking.hpp"
 #include "sweep/variants.hpp"
 #include "support/cli_run.hpp"
 
@@ -100,7 +102,7 @@ TEST_CASE("shards partition the variants") {
 }
 
 TEST_CASE("a bad sweep file is refused with its line and key") {
-  CHECK(message_of(study("unknown", "[[vary]]\nkey = \"winding.coil_pitch\"\nvalue = [4]\n")).find("study.toml:4: [[vary]] #1 value: unknown key; expected 'values'") != std::string::npos);
+  CHECK(message_of(study("unknown", "[[vary]]\nkey = \"winding.coil_pitch\"\nvalue = [4]\n")).find("study.toml:4: [[vary]] #1 value: unknown key (did you mean 'values'?); expected one of: key, values, range") != std::string::npos);
   CHECK(message_of(study("absent", "[[vary]]\nkey = \"winding.skew\"\nvalues = [1]\n")).find("study.toml:3: winding.skew: not set in the base case") != std::string::npos);
   CHECK(message_of(study("table", "[[vary]]\nkey = \"stator.slot\"\nvalues = [1]\n")).find("is a table or a list in the base case") != std::string::npos);
   CHECK(message_of(study("zip", "combine = \"zip\"\n[[vary]]\nkey = \"winding.coil_pitch\"\nvalues = [4, 5]\n"
@@ -110,7 +112,7 @@ TEST_CASE("a bad sweep file is refused with its line and key") {
   CHECK(message_of(study("none", "title = \"no keys\"\n")).find("vary") != std::string::npos);
   // A misspelt ranking is found when the file is read, before any variant runs.
   CHECK(message_of(study("rank", "rank_by = \"fundamental_t\"\n[[vary]]\nkey = \"winding.coil_pitch\"\nvalues = [4, 5]\n"))
-            .find("study.toml:2: rank_by = \"fundamental_t\": no such metric; expected one of: fundamental_T") !=
+            .find("study.toml:2: rank_by = \"fundamental_t\": no such metric (did you mean 'fundamental_T'?); expected one of: fundamental_T") !=
         std::string::npos);
   CHECK(message_of(study("same", "[[vary]]\nkey = \"winding.coil_pitch\"\nvalues = [4, 4]\n")).empty());  // read fine ...
   CHECK_THROWS_AS(expand_variants(read_sweep_file(study("same2", "[[vary]]\nkey = \"winding.coil_pitch\"\nvalues = [4, 4]\n"))), InputError);  // ... but two equal variants are refused
@@ -125,13 +127,82 @@ TEST_CASE("ranking puts the best value first in the metric's own direction, or t
     m[2] = ripple[i];  // peak_field_ripple
     t.rows.push_back({"v" + std::to_string(i), {"1"}, i == 2 ? "failed" : "ok", "", m, 0});
   }
-  rank_rows(t, "peak_field_ripple");
+  rank_rows(t, {"peak_field_ripple"});
   CHECK(t.rows[1].rank == 1);
   CHECK(t.rows[3].rank == 2);
   CHECK(t.rows[0].rank == 3);
   CHECK(t.rows[2].rank == 0);  // failed: not ranked
-  rank_rows(t, "peak_field_ripple:highest");
+  rank_rows(t, {"peak_field_ripple:highest"});
   CHECK(t.rows[0].rank == 1);
-  CHECK_THROWS_AS(rank_rows(t, "ripple"), InputError);
-  CHECK_THROWS_AS(rank_rows(t, "peak_field_ripple:best"), InputError);
+  CHECK_THROWS_AS(rank_rows(t, {"ripple"}), InputError);
+  CHECK_THROWS_AS(rank_rows(t, {"peak_field_ripple:best"}), InputError);
+}
+
+TEST_CASE("a misspelt key of a sweep file gets the nearest one suggested, with its line") {
+  // Top level, as the case reader words it.
+  CHECK(message_of(study("top", "rank_bye = \"fundamental_T\"\n[[vary]]\nkey = \"winding.coil_pitch\"\nvalues = [4, 5]\n"))
+            .find("study.toml:2: unknown key 'rank_bye'; did you mean 'rank_by'?") != std::string::npos);
+  CHECK(message_of(study("tie", "tie_brake = \"fundamental_T\"\n[[vary]]\nkey = \"winding.coil_pitch\"\nvalues = [4, 5]\n"))
+            .find("study.toml:2: unknown key 'tie_brake'; did you mean 'tie_break'?") != std::string::npos);
+  // A [[vary]] field.
+  CHECK(message_of(study("rnge", "[[vary]]\nkey = \"winding.coil_pitch\"\nrnge = { start = 4, stop = 6, count = 3 }\n"))
+            .find("study.toml:4: [[vary]] #1 rnge: unknown key (did you mean 'range'?)") != std::string::npos);
+  // A varied or fixed key the base case does not set, against the keys it does set.
+  CHECK(message_of(study("opening", "[[vary]]\nkey = \"stator.slot.openning\"\nvalues = [0.002]\n"))
+            .find("study.toml:3: stator.slot.openning: not set in the base case " + kBase +
+                  " (did you mean 'stator.slot.opening'?)") != std::string::npos);
+  CHECK(message_of(study("table", "[[vary]]\nkey = \"stater.slot.opening\"\nvalues = [0.002]\n"))
+            .find("(did you mean 'stator.slot.opening'?)") != std::string::npos);
+  CHECK(message_of(study("fixed", "[fixed]\n\"study.feild_files\" = 2\n[[vary]]\nkey = \"winding.coil_pitch\"\nvalues = [4, 5]\n"))
+            .find("study.toml:3: study.feild_files: not set in the base case " + kBase + " (did you mean 'study.field_files'?)") !=
+        std::string::npos);
+  // Nothing near: no guess.
+  CHECK(message_of(study("far", "[[vary]]\nkey = \"rotor.magnet.grade\"\nvalues = [1]\n")).find("did you mean") == std::string::npos);
+}
+
+TEST_CASE("a sweep file states its tie tolerance, tie-break and Pareto view, each checked where it is written") {
+  const std::string vary = "[[vary]]\nkey = \"winding.coil_pitch\"\nvalues = [4, 5]\n";
+  const SweepFile s = read_sweep_file(study("ranking", "rank_by = \"peak_field_ripple\"\nrank_tolerance = 0.01\n"
+                                                       "tie_break = \"fundamental_T:highest\"\n"
+                                                       "pareto = [\"torque_ripple:lowest\", \"torque_mean_N_m\"]\n" + vary));
+  CHECK(s.ranking.rank_by == "peak_field_ripple");
+  REQUIRE(s.ranking.tolerance.has_value());
+  CHECK(*s.ranking.tolerance == 0.01);
+  CHECK(s.ranking.tie_break == "fundamental_T:highest");
+  CHECK(s.ranking.pareto == std::vector<std::string>{"torque_ripple:lowest", "torque_mean_N_m"});
+  CHECK_FALSE(read_sweep_file(study("plain", vary)).ranking.tolerance.has_value());
+  CHECK(message_of(study("tol", "rank_tolerance = 1.5\n" + vary)).find("study.toml:2: rank_tolerance = 1.5: out of range") != std::string::npos);
+  CHECK(message_of(study("tb", "tie_break = \"fundamental\"\n" + vary)).find("study.toml:2: tie_break = \"fundamental\": no such metric") != std::string::npos);
+  CHECK(message_of(study("p1", "pareto = [\"fundamental_T\"]\n" + vary)).find("study.toml:2: pareto") != std::string::npos);
+  CHECK(message_of(study("p2", "pareto = [\"fundamental_T\", \"fundamental_T:lowest\"]\n" + vary)).find("names one metric twice") != std::string::npos);
+  CHECK(message_of(study("p3", "pareto = [\"fundamental_T\",\n  \"torque\"]\n" + vary)).find("study.toml:3: pareto[1] = \"torque\": no such metric") != std::string::npos);
+  // The command line's statements win over the file's, one by one.
+  const RankSpec merged = overridden(s.ranking, {"", 0.02, "", {}});
+  CHECK(merged.rank_by == "peak_field_ripple");
+  CHECK(*merged.tolerance == 0.02);
+  CHECK(merged.tie_break == "fundamental_T:highest");
+  CHECK(parse_pareto("a:lowest, b") == std::vector<std::string>{"a:lowest", "b"});
+  CHECK_THROWS_AS(parse_pareto("a"), InputError);
+  CHECK_THROWS_AS(parse_pareto("a,b,c"), InputError);
+}
+
+TEST_CASE("sweep.json keeps the sweep file's ranking for collect, and one written without it reads as unstated") {
+  const fs::path dir = tf::testing::fresh_folder("manifest_ranking");
+  fs::create_directories(dir);
+  Manifest m{"s.toml", "t", "b.toml", {"peak_field_ripple", 0.02, "fundamental_T", {"torque_ripple", "torque_mean_N_m"}}, {"k"},
+             {{"v1", {"1"}, ""}}};
+  write_manifest(dir, m);
+  const Manifest back = read_manifest(dir);
+  CHECK(back.ranking.rank_by == "peak_field_ripple");
+  REQUIRE(back.ranking.tolerance.has_value());
+  CHECK(*back.ranking.tolerance == 0.02);
+  CHECK(back.ranking.tie_break == "fundamental_T");
+  CHECK(back.ranking.pareto == m.ranking.pareto);
+  // The sweep.json of a turnfield before ties and Pareto views.
+  std::ofstream(dir / "sweep.json") << R"({"sweep_of": "turnfield", "sweep_file": "s", "title": "t", "base_case": "b",
+    "rank_by": "", "parameters": ["k"], "variants": [{"id": "v1", "inputs": ["1"], "problem": ""}]})";
+  const Manifest old = read_manifest(dir);
+  CHECK_FALSE(old.ranking.tolerance.has_value());
+  CHECK(old.ranking.tie_break.empty());
+  CHECK(old.ranking.pareto.empty());
 }
