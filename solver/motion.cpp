@@ -48,6 +48,7 @@ struct MotionSolver::Impl {
     unit_loads = phase_loads(m, all, w);
     magnet_source = layout.n_poles > 0 ? magnet_load(m, all, mat, layout) : Eigen::VectorXd::Zero(m.n_nodes());
     stats.n_dofs = dofs.n_dofs;
+    stats.n_analyses = solver.analyses();
   }
   const mesh::Mesh& m;
   const mesh::Winding& w;
@@ -71,6 +72,7 @@ struct MotionSolver::Impl {
     dofs = number_dofs(m, k);
     solver.set_dofs(dofs);
     stats.analyse_seconds += clock.seconds();
+    stats.n_analyses = solver.analyses();
     shift = k;
   }
 };

@@ -37,6 +37,7 @@ struct MotionStats {
   int n_dofs = 0;
   int n_solves = 0;
   int n_iterations = 0;   ///< Newton iterations summed over the solves
+  int n_analyses = 0;     ///< symbolic analyses (the first included); a position seen lately needs none
   /// Set-up with the first analysis, and at every new rotor position the new numbering, the new
   /// sparsity pattern and its symbolic analysis (all of what a turn costs before factorizing).
   double analyse_seconds = 0.0;

@@ -101,6 +101,7 @@ void NonlinearSolver::set_dofs(const DofMap& d) {
     cholesky_.analyse(matrix_);
     analysed_fill_ = cholesky_.factor_nonzeros();
   }
+  ++n_analyses_;
   factorized_.reset();
   last_solution_.resize(0);
 }

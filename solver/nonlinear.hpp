@@ -61,6 +61,9 @@ class NonlinearSolver {
   /// unknowns changed) a full analysis searches a new ordering. Forgets the last solution.
   void set_dofs(const DofMap& d);
 
+  /// Symbolic analyses done so far (one per numbering set).
+  int analyses() const { return n_analyses_; }
+
   /// Solves K(a) a = f. a: in, the start (warm start from a previous step); out, the last iterate.
   /// f = 0 gives a = 0 at once. A run that does not converge returns converged = false and
   /// leaves the last iterate in a; the caller turns that into an error naming the step.
@@ -119,6 +122,7 @@ class NonlinearSolver {
   Eigen::SparseMatrix<double> matrix_;  ///< fixed pattern; values overwritten by assemble()
   SpdSolver cholesky_;
   double analysed_fill_ = 0.0;  ///< nonzeros of L with the ordering of the last full analysis
+  int n_analyses_ = 0;
   bool linear_ = true;
   Eigen::VectorXd last_solution_;
   std::vector<double> last_b_squared_;  ///< per triangle at the last solution; kept across set_dofs
