@@ -133,7 +133,9 @@ void write_mesh(const input::Case& c, const fs::path& out_dir, std::ostream& out
   post::write_regions_table(out_dir / "regions.csv", post::drawing_as_mesh(drawing));
   out << fmt::format("{} nodes, {} triangles, {} regions, {} nodes on the sliding circle; {}\n", m.n_nodes(),
                      m.n_triangles(), m.regions.size(), m.sliding.stator_nodes.size(), model_description(m));
-  out << fmt::format("wrote {} and {}\n", (out_dir / "mesh.vtu").string(), (out_dir / "regions.csv").string());
+  out << fmt::format("wrote {} (the whole machine: {} nodes, {} triangles, {} regions) and {}\n",
+                     (out_dir / "mesh.vtu").string(), drawing.whole.n_nodes(), drawing.whole.n_triangles(),
+                     drawing.regions.size(), (out_dir / "regions.csv").string());
 }
 
 }  // namespace tf::study
