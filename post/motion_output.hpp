@@ -30,7 +30,7 @@ void write_inductance_table(const std::filesystem::path& path, const MotionResul
 /// and how to write it.
 struct FieldFrame {
   int step = 0;
-  double time = 0.0;  ///< [s], or another monotone index (an eddy study's speed number)
+  double time = 0.0;  ///< [s], or another monotone index (an eddy study's speed: post::speed_collection_axis)
   std::function<void(const std::filesystem::path&)> write;
 };
 
