@@ -235,3 +235,27 @@ TEST_CASE("an eddy study with an open boundary: no exterior image in the files, 
     check_regions(grid, out);
   }
 }
+
+TEST_CASE("a cage rotor by the slip method: each file's speed, slip, slip frequency and forward currents") {
+  const fs::path out = run_case("pump24_cage_eddy", "--fineness 0.3");
+  const auto speeds = read_rows(out / "torque_speed.csv");
+  const auto collection = read_collection(out / "field.pvd");
+  REQUIRE(collection.size() == 3);  // field_files = 3 of the case's ten speeds
+  for (const auto& [time, file] : collection) {
+    INFO(file);
+    const auto grid = read_vtu(out / file);
+    const auto k = static_cast<std::size_t>(field_number(grid, "speed_number"));
+    CHECK(time == doctest::Approx(std::stod(speeds[k].at("speed_rpm"))).epsilon(1e-9));
+    const double slip = std::stod(speeds[k].at("slip"));
+    CHECK(field_number(grid, "slip") == doctest::Approx(slip).epsilon(1e-9));
+    // The rotor-frame field of the forward wave pulsates at the slip frequency s f (f = 50 Hz, the case's).
+    CHECK(near(field_number(grid, "frequency_Hz"), slip * 50.0, 1e-9, 1.0));
+    // A balanced three-phase set is its own forward (positive-sequence) component (Fortescue,
+    // "Method of symmetrical co-ordinates", 1918): 6 A peak (the case's), phases 0, -120, +120 deg.
+    CHECK(field_number(grid, "current_A_peak_A") == doctest::Approx(6.0).epsilon(1e-9).scale(0));
+    CHECK(field_number(grid, "current_B_peak_A") == doctest::Approx(6.0).epsilon(1e-9).scale(0));
+    CHECK(field_number(grid, "current_B_phase_deg") == doctest::Approx(-120.0).epsilon(1e-9).scale(0));
+    CHECK(field_number(grid, "current_C_phase_deg") == doctest::Approx(120.0).epsilon(1e-9).scale(0));
+    check_regions(grid, out);
+  }
+}
