@@ -1,5 +1,6 @@
 #include "post/eddy_output.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <numbers>
 
@@ -36,6 +37,48 @@ void write_torque_speed(const std::filesystem::path& path, const std::vector<Spe
       o << '\n';
     }
   });
+}
+
+SpeedAxis speed_collection_axis(const std::vector<SpeedResult>& written) {
+  const auto monotone = [&](auto value, double sign) {
+    for (std::size_t k = 1; k < written.size(); ++k)
+      if (!(sign * (value(written[k]) - value(written[k - 1])) > 0.0)) return false;
+    return true;
+  };
+  const auto speed = [](const SpeedResult& r) { return r.rotor_speed; };
+  const auto slip = [](const SpeedResult& r) { return r.slip; };
+  SpeedAxis axis;
+  if (monotone(speed, 1.0)) {
+    axis.name = "speed_rpm";
+    for (const auto& r : written) axis.values.push_back(rpm(r.rotor_speed));
+  } else if (monotone(slip, 1.0) && std::all_of(written.begin(), written.end(), [](const SpeedResult& r) {
+               return std::isfinite(r.slip);
+             })) {
+    axis.name = "slip";
+    for (const auto& r : written) axis.values.push_back(r.slip);
+  } else {
+    axis.name = "speed_number";
+    for (std::size_t k = 0; k < written.size(); ++k) axis.values.push_back(static_cast<double>(k));
+  }
+  return axis;
+}
+
+FieldMetadata speed_metadata(int speed_number, const SpeedResult& row, double frequency,
+                             const std::vector<std::complex<double>>& currents, const std::string& axis) {
+  FieldMetadata info;
+  info.numbers = {{"speed_number", speed_number},
+                  {"speed_rad_per_s", row.rotor_speed},
+                  {"speed_rpm", rpm(row.rotor_speed)},
+                  {"slip", row.slip},
+                  {"frequency_Hz", frequency},
+                  {"rotor_angle_deg", 0.0}};
+  for (std::size_t k = 0; k < currents.size(); ++k) {
+    const std::string phase = phase_name(static_cast<int>(k));
+    info.numbers.emplace_back("current_" + phase + "_peak_A", std::abs(currents[k]));
+    info.numbers.emplace_back("current_" + phase + "_phase_deg", std::arg(currents[k]) * 180.0 / std::numbers::pi);
+  }
+  info.texts = {{"collection_time", axis}};
+  return info;
 }
 
 }  // namespace tf::post

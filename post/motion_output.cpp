@@ -60,19 +60,17 @@ double drawn_rotor_angle(const mesh::Mesh& m, double rotor_angle) {
   return rotor_angle - std::floor(rotor_angle / sector) * sector;
 }
 
-void write_position_field(const std::filesystem::path& path, const mesh::Mesh& m, const Eigen::VectorXd& field,
-                          double rotor_angle) {
-  // A sector model draws its rotor piece turned back by whole sectors into the stator's sector,
-  // showing the image of the field there (the sign flips once per sector when anti-periodic).
-  const double sector = 2 * std::numbers::pi / m.symmetry.copies;
-  const double turns = std::floor(rotor_angle / sector);
-  Eigen::VectorXd a = field;
-  if (m.symmetry.sign_of_copy(static_cast<int>(turns) % 2 == 0 ? 0 : 1) < 0) {
-    const std::vector<bool> rotor = mesh::rotor_side_nodes(m);
-    for (int node = 0; node < m.n_nodes(); ++node)
-      if (rotor[static_cast<std::size_t>(node)]) a(node) = -a(node);
-  }
-  write_field_vtu(path, mesh::with_rotor_turned(m, drawn_rotor_angle(m, rotor_angle)), a);
+FieldMetadata step_metadata(int step, double electrical_angle, double rotor_angle, double time,
+                            const std::vector<double>& currents) {
+  FieldMetadata info;
+  info.numbers = {{"step", step},
+                  {"electrical_angle_deg", electrical_angle * kDeg},
+                  {"rotor_angle_deg", rotor_angle * kDeg},
+                  {"time_s", time}};
+  for (std::size_t k = 0; k < currents.size(); ++k)
+    info.numbers.emplace_back("current_" + phase_name(static_cast<int>(k)) + "_A", currents[k]);
+  info.texts = {{"collection_time", "time_s"}};
+  return info;
 }
 
 std::vector<std::string> write_field_series(const std::filesystem::path& dir, const std::vector<FieldFrame>& frames) {
@@ -90,14 +88,15 @@ std::vector<std::string> write_field_series(const std::filesystem::path& dir, co
   return files;
 }
 
-void write_iron_loss(const std::filesystem::path& dir, const mesh::Mesh& m, const IronLoss& loss) {
+void write_iron_loss(const std::filesystem::path& dir, const FieldDrawing& d, const IronLoss& loss) {
+  const mesh::Mesh& m = d.model;
   write_atomically(dir / "iron_loss.csv", [&](std::ostream& out) {
     out << "region,iron_loss_W\n";
     for (std::size_t i = 0; i < m.regions.size(); ++i)
       if (loss.region_loss[i] > 0.0) out << m.regions[i].name << ',' << fmt::format("{:.8g}", loss.region_loss[i]) << '\n';
     out << "total," << fmt::format("{:.8g}", loss.total) << '\n';
   });
-  write_cell_field_vtu(dir / "iron_loss.vtu", m, "iron_loss_W_per_m3", loss.density);
+  write_cell_field_vtu(dir / "iron_loss.vtu", d, "iron_loss_W_per_m3", loss.density);
 }
 
 }  // namespace tf::post

@@ -14,6 +14,7 @@
 #include "mesh/winding.hpp"
 #include "post/iron_loss.hpp"
 #include "post/motion_result.hpp"
+#include "post/vtu.hpp"
 #include "solver/motion.hpp"
 
 namespace tf::post {
@@ -29,7 +30,7 @@ void write_inductance_table(const std::filesystem::path& path, const MotionResul
 /// and how to write it.
 struct FieldFrame {
   int step = 0;
-  double time = 0.0;  ///< [s], or another monotone index (an eddy study's speed number)
+  double time = 0.0;  ///< [s], or another monotone index (an eddy study's speed: post::speed_collection_axis)
   std::function<void(const std::filesystem::path&)> write;
 };
 
@@ -37,16 +38,17 @@ struct FieldFrame {
 /// (none for no frames). The one field-file writer of every study.
 std::vector<std::string> write_field_series(const std::filesystem::path& dir, const std::vector<FieldFrame>& frames);
 
-/// One step's field file, nodal A (#nodes, rotor nodes in the rotor's frame) drawn with the rotor
-/// turned to rotor_angle [rad], where it stood.
-void write_position_field(const std::filesystem::path& path, const mesh::Mesh& m, const Eigen::VectorXd& field,
-                          double rotor_angle);
+/// The field data of a magnetostatic step: "step", "electrical_angle_deg", "rotor_angle_deg",
+/// "time_s" and "current_<phase>_A" (the names of steps.csv and torque.csv).
+FieldMetadata step_metadata(int step, double electrical_angle, double rotor_angle, double time,
+                            const std::vector<double>& currents);
 
 /// The rotor angle [rad] at which a (sector) mesh draws a rotor that stood at rotor_angle: turned
 /// back by whole sectors into the stator's sector (the field there is the image of the field).
 double drawn_rotor_angle(const mesh::Mesh& m, double rotor_angle);
 
-/// iron_loss.csv (per region [W]) and iron_loss.vtu (loss density per triangle [W/m^3]).
-void write_iron_loss(const std::filesystem::path& dir, const mesh::Mesh& m, const IronLoss& loss);
+/// iron_loss.csv (per region of the model d draws [W]) and iron_loss.vtu (loss density per
+/// triangle [W/m^3], the whole machine).
+void write_iron_loss(const std::filesystem::path& dir, const FieldDrawing& d, const IronLoss& loss);
 
 }  // namespace tf::post

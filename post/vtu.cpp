@@ -1,17 +1,22 @@
 #include "post/vtu.hpp"
 
+#include <cassert>
+#include <functional>
+
 #include <fmt/format.h>
 
 #include <vtkCellArray.h>
 #include <vtkCellData.h>
 #include <vtkDoubleArray.h>
 #include <vtkErrorCode.h>
+#include <vtkFieldData.h>
 #include <vtkFloatArray.h>
 #include <vtkIntArray.h>
 #include <vtkNew.h>
 #include <vtkPointData.h>
 #include <vtkPoints.h>
 #include <vtkSmartPointer.h>
+#include <vtkStringArray.h>
 #include <vtkUnstructuredGrid.h>
 #include <vtkXMLUnstructuredGridWriter.h>
 
@@ -22,26 +27,76 @@
 namespace tf::post {
 namespace {
 
-vtkSmartPointer<vtkUnstructuredGrid> grid_of(const mesh::Mesh& m) {
+vtkNew<vtkIntArray> cell_ints(const char* name, int n, const std::function<int(int)>& value) {
+  vtkNew<vtkIntArray> a;
+  a->SetName(name);
+  a->SetNumberOfValues(n);
+  for (int t = 0; t < n; ++t) a->SetValue(t, value(t));
+  return a;
+}
+
+vtkNew<vtkStringArray> strings(const char* name, const std::vector<std::string>& values) {
+  vtkNew<vtkStringArray> a;
+  a->SetName(name);
+  a->SetNumberOfValues(static_cast<vtkIdType>(values.size()));
+  for (std::size_t i = 0; i < values.size(); ++i) a->SetValue(static_cast<vtkIdType>(i), values[i]);
+  return a;
+}
+
+/// The whole machine's points and triangles, the region, phase and direction of each triangle and
+/// the names a viewer shows for them.
+vtkSmartPointer<vtkUnstructuredGrid> grid_of(const FieldDrawing& d) {
+  const WholeMachine& w = d.whole;
   auto grid = vtkSmartPointer<vtkUnstructuredGrid>::New();
   vtkNew<vtkPoints> points;
   points->SetDataTypeToFloat();
-  points->SetNumberOfPoints(m.n_nodes());
-  for (int i = 0; i < m.n_nodes(); ++i) points->SetPoint(i, m.nodes(i, 0), m.nodes(i, 1), 0.0);
+  points->SetNumberOfPoints(w.n_nodes());
+  for (int i = 0; i < w.n_nodes(); ++i) points->SetPoint(i, w.nodes(i, 0), w.nodes(i, 1), 0.0);
   grid->SetPoints(points);
   vtkNew<vtkCellArray> cells;
-  cells->AllocateExact(m.n_triangles(), 3 * m.n_triangles());
-  for (int t = 0; t < m.n_triangles(); ++t) {
-    const vtkIdType ids[3] = {m.triangles(t, 0), m.triangles(t, 1), m.triangles(t, 2)};
+  cells->AllocateExact(w.n_triangles(), 3 * w.n_triangles());
+  for (int t = 0; t < w.n_triangles(); ++t) {
+    const vtkIdType ids[3] = {w.triangles(t, 0), w.triangles(t, 1), w.triangles(t, 2)};
     cells->InsertNextCell(3, ids);
   }
   grid->SetCells(VTK_TRIANGLE, cells);
-  vtkNew<vtkIntArray> region;
-  region->SetName("region");
-  region->SetNumberOfValues(m.n_triangles());
-  for (int t = 0; t < m.n_triangles(); ++t) region->SetValue(t, m.triangle_region(t));
-  grid->GetCellData()->AddArray(region);
+  const int n = w.n_triangles();
+  const auto& region = d.triangle_region;
+  grid->GetCellData()->AddArray(cell_ints("region", n, [&](int t) { return region(t); }));
+  grid->GetCellData()->AddArray(cell_ints("phase", n, [&](int t) { return d.regions[region(t)].phase; }));
+  grid->GetCellData()->AddArray(cell_ints("direction", n, [&](int t) { return d.regions[region(t)].direction; }));
+  std::vector<std::string> names;
+  for (const DrawnRegion& r : d.regions) names.push_back(r.name);
+  grid->GetFieldData()->AddArray(strings("region_names", names));
+  grid->GetFieldData()->AddArray(strings("phase_names", d.phase_names));
   return grid;
+}
+
+vtkNew<vtkFloatArray> cell_floats(const char* name, const Eigen::VectorXd& values) {
+  vtkNew<vtkFloatArray> a;
+  a->SetName(name);
+  a->SetNumberOfValues(values.size());
+  for (Eigen::Index t = 0; t < values.size(); ++t) a->SetValue(t, static_cast<float>(values(t)));
+  return a;
+}
+
+vtkNew<vtkDoubleArray> node_array(const char* name, const Eigen::VectorXd& values) {
+  vtkNew<vtkDoubleArray> a;
+  a->SetName(name);
+  a->SetNumberOfValues(values.size());
+  for (Eigen::Index i = 0; i < values.size(); ++i) a->SetValue(i, values(i));
+  return a;
+}
+
+void add_metadata(vtkUnstructuredGrid* grid, const FieldMetadata& info) {
+  for (const auto& [name, value] : info.numbers) {
+    vtkNew<vtkDoubleArray> a;
+    a->SetName(name.c_str());
+    a->SetNumberOfValues(1);
+    a->SetValue(0, value);
+    grid->GetFieldData()->AddArray(a);
+  }
+  for (const auto& [name, text] : info.texts) grid->GetFieldData()->AddArray(strings(name.c_str(), {text}));
 }
 
 void write_grid(const std::filesystem::path& path, vtkUnstructuredGrid* grid) {
@@ -68,30 +123,31 @@ void write_grid(const std::filesystem::path& path, vtkUnstructuredGrid* grid) {
 
 }  // namespace
 
-void write_mesh_vtu(const std::filesystem::path& path, const mesh::Mesh& m) {
-  auto grid = grid_of(m);
+void write_mesh_vtu(const std::filesystem::path& path, const FieldDrawing& d) {
+  auto grid = grid_of(d);
+  grid->GetCellData()->SetActiveScalars("region");
   write_grid(path, grid);
 }
 
-void write_field_vtu(const std::filesystem::path& path, const mesh::Mesh& m, const Eigen::VectorXd& a) {
-  auto grid = grid_of(m);
-  vtkNew<vtkDoubleArray> potential;
-  potential->SetName("A_z_Wb_per_m");
-  potential->SetNumberOfValues(m.n_nodes());
-  for (int i = 0; i < m.n_nodes(); ++i) potential->SetValue(i, a(i));
-  grid->GetPointData()->AddArray(potential);
+void write_field_vtu(const std::filesystem::path& path, const FieldDrawing& d, const Eigen::VectorXd& a,
+                     const FieldMetadata& info) {
+  auto grid = grid_of(d);
+  add_metadata(grid, info);
+  const Eigen::VectorXd drawn = d.drawn_field(a);
+  grid->GetPointData()->AddArray(node_array("A_z_Wb_per_m", unfold_nodal(d.whole, drawn)));
 
-  const Eigen::MatrixX2d b = flux_density(m, a);
+  // B of each model triangle, turned and signed with its copy.
+  const Eigen::MatrixX2d b = unfold_cell_vectors(d.whole, flux_density(d.model, drawn));
   // Single precision is ample for looking at B and halves the files.
   vtkNew<vtkFloatArray> vector, magnitude;
   vector->SetName("B_T");
   vector->SetNumberOfComponents(3);
-  vector->SetNumberOfTuples(m.n_triangles());
+  vector->SetNumberOfTuples(b.rows());
   magnitude->SetName("B_magnitude_T");
-  magnitude->SetNumberOfValues(m.n_triangles());
-  for (int t = 0; t < m.n_triangles(); ++t) {
+  magnitude->SetNumberOfValues(b.rows());
+  for (Eigen::Index t = 0; t < b.rows(); ++t) {
     vector->SetTuple3(t, b(t, 0), b(t, 1), 0.0);
-    magnitude->SetValue(t, b.row(t).norm());
+    magnitude->SetValue(t, static_cast<float>(b.row(t).norm()));
   }
   grid->GetCellData()->AddArray(vector);
   grid->GetCellData()->AddArray(magnitude);
@@ -99,14 +155,11 @@ void write_field_vtu(const std::filesystem::path& path, const mesh::Mesh& m, con
   write_grid(path, grid);
 }
 
-void write_cell_field_vtu(const std::filesystem::path& path, const mesh::Mesh& m, const std::string& name,
-                          const Eigen::VectorXd& values) {
-  auto grid = grid_of(m);
-  vtkNew<vtkFloatArray> field;
-  field->SetName(name.c_str());
-  field->SetNumberOfValues(m.n_triangles());
-  for (int t = 0; t < m.n_triangles(); ++t) field->SetValue(t, static_cast<float>(values(t)));
-  grid->GetCellData()->AddArray(field);
+void write_cell_field_vtu(const std::filesystem::path& path, const FieldDrawing& d, const std::string& name,
+                          const Eigen::VectorXd& values, const FieldMetadata& info) {
+  auto grid = grid_of(d);
+  add_metadata(grid, info);
+  grid->GetCellData()->AddArray(cell_floats(name.c_str(), unfold_cells(d.whole, values)));
   grid->GetCellData()->SetActiveScalars(name.c_str());
   write_grid(path, grid);
 }
@@ -122,21 +175,6 @@ void write_collection(const std::filesystem::path& path, const std::vector<Colle
   });
 }
 
-}  // namespace tf::post
-
-namespace tf::post {
-namespace {
-
-vtkNew<vtkDoubleArray> node_array(const char* name, const Eigen::VectorXd& values) {
-  vtkNew<vtkDoubleArray> a;
-  a->SetName(name);
-  a->SetNumberOfValues(values.size());
-  for (Eigen::Index i = 0; i < values.size(); ++i) a->SetValue(i, values(i));
-  return a;
-}
-
-}  // namespace
-
 Eigen::VectorXd peak_flux_density(const mesh::Mesh& m, const Eigen::VectorXcd& a) {
   const Eigen::MatrixX2d b_re = flux_density(m, a.real()), b_im = flux_density(m, a.imag());
   Eigen::VectorXd peak(m.n_triangles());
@@ -149,40 +187,43 @@ Eigen::VectorXd peak_flux_density(const mesh::Mesh& m, const Eigen::VectorXcd& a
   return peak;
 }
 
-void write_eddy_vtu(const std::filesystem::path& path, const mesh::Mesh& m, const Eigen::VectorXcd& a,
-                    const SpeedInputs& in, double rotor_speed) {
-  auto grid = grid_of(m);
-  grid->GetPointData()->AddArray(node_array("A_z_real_Wb_per_m", a.real()));
-  grid->GetPointData()->AddArray(node_array("A_z_imag_Wb_per_m", a.imag()));
+namespace {
+
+/// Peak induced current density |J| = sigma |j w A + w_r dA/dtheta| [A/m^2] at each triangle's centroid.
+Eigen::VectorXd induced_current_peak(const mesh::Mesh& m, const Eigen::VectorXcd& a, const SpeedInputs& in,
+                                     double rotor_speed) {
   const Eigen::MatrixX2d b_re = flux_density(m, a.real()), b_im = flux_density(m, a.imag());
-  const Eigen::VectorXd peak = peak_flux_density(m, a);
   const double omega = 2 * 3.14159265358979323846 * in.frequency;
-  vtkNew<vtkFloatArray> b_peak, j_peak;
-  b_peak->SetName("B_peak_T");
-  j_peak->SetName("J_induced_peak_A_per_m2");
-  b_peak->SetNumberOfValues(m.n_triangles());
-  j_peak->SetNumberOfValues(m.n_triangles());
+  Eigen::VectorXd j = Eigen::VectorXd::Zero(m.n_triangles());
   for (int t = 0; t < m.n_triangles(); ++t) {
-    b_peak->SetValue(t, static_cast<float>(peak(t)));
-    // |J| = sigma |j w A + w_r dA/dtheta| at the centroid.
     const int r = m.triangle_region(t);
-    double j = 0.0;
-    if (in.sigma[r] > 0.0) {
-      std::complex<double> mean_a = 0.0;
-      Eigen::Vector2d c = Eigen::Vector2d::Zero();
-      for (int i = 0; i < 3; ++i) {
-        mean_a += a(m.triangles(t, i)) / 3.0;
-        c += m.nodes.row(m.triangles(t, i)).transpose() / 3.0;
-      }
-      const std::complex<double> grad_x(-b_re(t, 1), -b_im(t, 1)), grad_y(b_re(t, 0), b_im(t, 0));
-      const std::complex<double> dtheta = c(0) * grad_y - c(1) * grad_x;
-      const double speed = in.on_rotor[r] ? rotor_speed : 0.0;
-      j = in.sigma[r] * std::abs(std::complex<double>(0.0, omega) * mean_a + speed * dtheta);
+    if (in.sigma[r] <= 0.0) continue;
+    std::complex<double> mean_a = 0.0;
+    Eigen::Vector2d c = Eigen::Vector2d::Zero();
+    for (int i = 0; i < 3; ++i) {
+      mean_a += a(m.triangles(t, i)) / 3.0;
+      c += m.nodes.row(m.triangles(t, i)).transpose() / 3.0;
     }
-    j_peak->SetValue(t, static_cast<float>(j));
+    const std::complex<double> grad_x(-b_re(t, 1), -b_im(t, 1)), grad_y(b_re(t, 0), b_im(t, 0));
+    const std::complex<double> dtheta = c(0) * grad_y - c(1) * grad_x;
+    const double speed = in.on_rotor[r] ? rotor_speed : 0.0;
+    j(t) = in.sigma[r] * std::abs(std::complex<double>(0.0, omega) * mean_a + speed * dtheta);
   }
-  grid->GetCellData()->AddArray(b_peak);
-  grid->GetCellData()->AddArray(j_peak);
+  return j;
+}
+
+}  // namespace
+
+void write_eddy_vtu(const std::filesystem::path& path, const FieldDrawing& d, const Eigen::VectorXcd& a,
+                    const SpeedInputs& in, double rotor_speed, const FieldMetadata& info) {
+  assert(d.rotor_sign == 1);  // drawn as meshed: the rotor of a time-harmonic study is not turned
+  auto grid = grid_of(d);
+  add_metadata(grid, info);
+  grid->GetPointData()->AddArray(node_array("A_z_real_Wb_per_m", unfold_nodal(d.whole, a.real())));
+  grid->GetPointData()->AddArray(node_array("A_z_imag_Wb_per_m", unfold_nodal(d.whole, a.imag())));
+  grid->GetCellData()->AddArray(cell_floats("B_peak_T", unfold_cells(d.whole, peak_flux_density(d.model, a))));
+  grid->GetCellData()->AddArray(cell_floats("J_induced_peak_A_per_m2",
+                                            unfold_cells(d.whole, induced_current_peak(d.model, a, in, rotor_speed))));
   grid->GetCellData()->SetActiveScalars("B_peak_T");
   write_grid(path, grid);
 }

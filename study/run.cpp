@@ -7,6 +7,7 @@
 #include "input/case_json.hpp"
 #include "input/input_error.hpp"
 #include "post/atomic_file.hpp"
+#include "post/field_drawing.hpp"
 #include "post/tables.hpp"
 #include "post/vtu.hpp"
 #include "solver/stopwatch.hpp"
@@ -72,7 +73,8 @@ void write_outputs(const fs::path& dir, const input::Case& c, const MeshedCase& 
   if (s.write_extra)
     for (auto& name : s.write_extra(dir)) r.files.push_back(std::move(name));
   for (auto& name : post::write_field_series(dir, s.frames)) r.files.push_back(std::move(name));
-  post::write_regions_table(dir / "regions.csv", mc.mesh);
+  // The regions of the whole machine the field files draw, with the ids their "region" arrays use.
+  post::write_regions_table(dir / "regions.csv", post::drawing_as_mesh(post::field_drawing(mc.mesh, c.geometry, &mc.winding)));
   post::ReportContext report{c.title, r.study, r.model, r.inputs_json, c.winding.pole_pairs(),
                              mesh::layout_winding_factor(mc.winding, 0, c.winding.pole_pairs()), s.section};
   post::write_report(dir, post::study_page(report, r));
@@ -123,16 +125,20 @@ RunOutcome run_study(const input::Case& c, const RunOptions& options, std::ostre
 void write_mesh(const input::Case& c, const fs::path& out_dir, std::ostream& out) {
   Progress progress;
   progress.stage("meshing");
-  const mesh::Mesh m = mesh_and_wind(c).mesh;
+  const MeshedCase mc = mesh_and_wind(c);
+  const mesh::Mesh& m = mc.mesh;
+  const post::FieldDrawing drawing = post::field_drawing(m, c.geometry, &mc.winding);
   progress.finish();
   std::error_code ec;
   fs::create_directories(out_dir, ec);
   if (ec) throw post::OutputError("could not create the output folder " + out_dir.string() + ": " + ec.message());
-  post::write_mesh_vtu(out_dir / "mesh.vtu", m);
-  post::write_regions_table(out_dir / "regions.csv", m);
+  post::write_mesh_vtu(out_dir / "mesh.vtu", drawing);
+  post::write_regions_table(out_dir / "regions.csv", post::drawing_as_mesh(drawing));
   out << fmt::format("{} nodes, {} triangles, {} regions, {} nodes on the sliding circle; {}\n", m.n_nodes(),
                      m.n_triangles(), m.regions.size(), m.sliding.stator_nodes.size(), model_description(m));
-  out << fmt::format("wrote {} and {}\n", (out_dir / "mesh.vtu").string(), (out_dir / "regions.csv").string());
+  out << fmt::format("wrote {} (the whole machine: {} nodes, {} triangles, {} regions) and {}\n",
+                     (out_dir / "mesh.vtu").string(), drawing.whole.n_nodes(), drawing.whole.n_triangles(),
+                     drawing.regions.size(), (out_dir / "regions.csv").string());
 }
 
 }  // namespace tf::study

@@ -31,7 +31,8 @@ struct RunOutcome {
 /// Throws mesh::MeshError, solver::SolveError or post::OutputError.
 RunOutcome run_study(const input::Case& c, const RunOptions& options, std::ostream& out);
 
-/// Meshes the case as run_study would and writes mesh.vtu (region ids) and regions.csv to out_dir.
+/// Meshes the case as run_study would and writes mesh.vtu (the whole machine, by region, as the field
+/// files draw it) and regions.csv to out_dir.
 void write_mesh(const input::Case& c, const std::filesystem::path& out_dir, std::ostream& out);
 
 }  // namespace tf::study

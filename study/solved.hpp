@@ -34,7 +34,7 @@ struct StudyInput {
 };
 
 /// A strategy's results: the bodies it has, what the solver did, the field files to write and
-/// the cross-section of the report. Closures in `frames` and `write_extra` may refer to the
+/// the cross-section of the report. Closures in `frames` and `write_extra` may refer to the case,
 /// mesh and winding of the StudyInput, which outlive them.
 struct Solved {
   std::optional<post::StudyResult> field;

@@ -12,6 +12,7 @@
 #include <fmt/format.h>
 
 #include "post/flux_density.hpp"
+#include "post/field_drawing.hpp"
 #include "post/iron_loss.hpp"
 #include "post/study.hpp"
 #include "post/torque.hpp"
@@ -173,8 +174,8 @@ void add_iron_loss(const StudyInput& in, const post::FluxHistory& history, post:
       post::iron_loss(in.m, history, solver::region_coefficients(in.m, in.c.materials).iron_loss, in.c.stack_length);
   for (std::size_t i = 0; i < in.m.regions.size(); ++i)
     if (loss.region_loss[i] > 0.0) r.iron_loss.push_back({in.m.regions[i].name, loss.region_loss[i]});
-  out.write_extra = [&m = in.m, loss](const std::filesystem::path& dir) {
-    post::write_iron_loss(dir, m, loss);
+  out.write_extra = [&m = in.m, &g = in.c.geometry, &w = in.w, loss](const std::filesystem::path& dir) {
+    post::write_iron_loss(dir, post::field_drawing(m, g, &w), loss);
     return std::vector<std::string>{"iron_loss.csv", "iron_loss.vtu"};
   };
 }
@@ -182,11 +183,14 @@ void add_iron_loss(const StudyInput& in, const post::FluxHistory& history, post:
 /// The field files of `files` and the report's cross-section, each drawn with its rotor where it stood.
 void add_fields(const StudyInput& in, const MotionSchedule& plan, const post::MotionResult& r, const KeptFields& kept,
                 const std::vector<int>& files, Solved& out) {
-  for (int k : files)
-    out.frames.push_back({k, step_time(in.c, plan, k), [&m = in.m, a = kept.of(k), angle = r.steps[k].rotor_angle](
-                                                           const std::filesystem::path& path) {
-                            post::write_position_field(path, m, a, angle);
+  for (int k : files) {
+    const double angle = r.steps[k].rotor_angle, time = step_time(in.c, plan, k);
+    out.frames.push_back({k, time, [&m = in.m, &g = in.c.geometry, &w = in.w, a = kept.of(k), angle,
+                                    info = post::step_metadata(k, plan.electrical_angle[k], angle, time, plan.currents[k])](
+                                       const std::filesystem::path& path) {
+                            post::write_field_vtu(path, post::field_drawing(m, g, &w, angle), a, info);
                           }});
+  }
   const int shown = in.options.report_step;
   const double angle = r.steps[shown].rotor_angle;
   constexpr double deg = 180.0 / std::numbers::pi;

@@ -38,11 +38,17 @@ Solved solve_by_superposition(const StudyInput& in) {
   out.drive_json = drive_to_json(supply, c.winding.n_phases, drive);
   out.notes = drive_notes(supply, c.winding.n_phases, drive);
 
-  for (int k : field_steps(in, c.study.n_steps)) {
+  const std::vector<int> files = field_steps(in, c.study.n_steps);
+  // One drawing of the whole machine serves every file: the rotor stands still.
+  const auto drawing = files.empty() ? nullptr
+                                     : std::make_shared<const post::FieldDrawing>(post::field_drawing(in.m, c.geometry, &in.w));
+  for (int k : files) {
     const post::StepResult& s = out.field->steps[k];
     const double time = s.electrical_angle / (2 * std::numbers::pi * c.supply.frequency);
-    out.frames.push_back({k, time, [&m = in.m, fields, currents = s.currents](const std::filesystem::path& path) {
-                            post::write_field_vtu(path, m, solver::superpose(*fields, currents));
+    out.frames.push_back({k, time, [drawing, fields, currents = s.currents,
+                                    info = post::step_metadata(k, s.electrical_angle, 0.0, time, s.currents)](
+                                       const std::filesystem::path& path) {
+                            post::write_field_vtu(path, *drawing, solver::superpose(*fields, currents), info);
                           }});
   }
   const post::StepResult& shown = out.field->steps[in.options.report_step];

@@ -22,15 +22,34 @@ namespace {
 
 using solver::kMu0;
 
-/// Speed k's field files (indexed by speed number) and the report's cross-section.
-void add_fields(const StudyInput& in, Solved& out, const std::vector<double>& speeds,
-                std::function<Eigen::VectorXcd(int)> field, std::function<void(int, const std::filesystem::path&)> write,
-                const char* what) {
-  for (int k : field_steps(in, static_cast<int>(speeds.size())))
-    out.frames.push_back({k, static_cast<double>(k), [write, k](const std::filesystem::path& path) { write(k, path); }});
+/// How an eddy study's files show speed k: its field, its writer, the currents and the frequency
+/// [Hz] of the field shown.
+struct SpeedFiles {
+  std::function<Eigen::VectorXcd(int)> field;
+  std::function<void(int, const post::FieldDrawing&, const post::FieldMetadata&, const std::filesystem::path&)> write;
+  std::vector<std::complex<double>> currents;
+  std::function<double(int)> frequency;
+  const char* what;
+};
+
+/// The field files of the speeds (the collection indexed by speed, post::speed_collection_axis)
+/// and the report's cross-section.
+void add_fields(const StudyInput& in, Solved& out, const std::vector<post::SpeedResult>& rows, const SpeedFiles& f) {
+  const std::vector<int> files = field_steps(in, static_cast<int>(rows.size()));
+  std::vector<post::SpeedResult> written;
+  for (int k : files) written.push_back(rows[k]);
+  const post::SpeedAxis axis = post::speed_collection_axis(written);
+  const auto drawing = files.empty() ? nullptr
+                                     : std::make_shared<const post::FieldDrawing>(post::field_drawing(in.m, in.c.geometry, &in.w));
+  for (std::size_t i = 0; i < files.size(); ++i) {
+    const int k = files[i];
+    out.frames.push_back({k, axis.values[i], [write = f.write, drawing, k,
+                                              info = post::speed_metadata(k, rows[k], f.frequency(k), f.currents, axis.name)](
+                                                 const std::filesystem::path& path) { write(k, *drawing, info, path); }});
+  }
   const int shown = in.options.report_step;
-  out.section = {&in.m, post::peak_flux_density(in.m, field(shown)),
-                 fmt::format("speed {} ({:.4g} rad/s), peak over a period{}", shown, speeds[shown], what)};
+  out.section = {&in.m, post::peak_flux_density(in.m, f.field(shown)),
+                 fmt::format("speed {} ({:.4g} rad/s), peak over a period{}", shown, rows[shown].rotor_speed, f.what)};
 }
 
 /// Skin depths per conducting region, with the permeability and conductivity each region was solved with.
@@ -87,11 +106,13 @@ Solved solve_by_motion_term(const StudyInput& in) {
   e.skin = skin(in, k);
   warn_coarse_skins(e.skin, out.warnings);
   out.seconds.emplace_back("post", clock.lap());
-  add_fields(in, out, speeds, [solutions](int i) { return (*solutions)[i]; },
-             [&m = in.m, speed_in, solutions, speeds](int i, const std::filesystem::path& path) {
-               post::write_eddy_vtu(path, m, (*solutions)[i], speed_in, speeds[i]);
-             },
-             "");
+  add_fields(in, out, e.rows,
+             {[solutions](int i) { return (*solutions)[i]; },
+              [speed_in, solutions, speeds](int i, const post::FieldDrawing& d, const post::FieldMetadata& info,
+                                            const std::filesystem::path& path) {
+                post::write_eddy_vtu(path, d, (*solutions)[i], speed_in, speeds[i], info);
+              },
+              currents, [f = c.supply.frequency](int) { return f; }, ""});
   out.solver = umfpack_summary(stats);
   out.eddy = std::move(e);
   return out;
@@ -117,14 +138,18 @@ Solved solve_by_slip_method(const StudyInput& in) {
   e.skin = skin(in, k);
   warn_coarse_skins(e.skin, out.warnings);
   // The field files show the forward component in the rotor frame (J = -j s omega sigma A).
-  add_fields(in, out, c.study.rotor_speeds, [study](int k) { return study->forward[k]; },
-             [&m = in.m, &w = in.w, &c, study, sigma, on](int k, const std::filesystem::path& path) {
-               const double s = study->rows[k].slip;
-               const post::SpeedInputs speed_in{&m, &w, sigma, on, study->components.forward, s * c.supply.frequency,
-                                                c.stack_length};
-               post::write_eddy_vtu(path, m, study->forward[k], speed_in, 0.0);
-             },
-             ", forward component");
+  add_fields(in, out, study->rows,
+             {[study](int k) { return study->forward[k]; },
+              [&m = in.m, &w = in.w, &c, study, sigma, on](int k, const post::FieldDrawing& d,
+                                                         const post::FieldMetadata& info,
+                                                         const std::filesystem::path& path) {
+                const double s = study->rows[k].slip;
+                const post::SpeedInputs speed_in{&m, &w, sigma, on, study->components.forward,
+                                                 s * c.supply.frequency, c.stack_length};
+                post::write_eddy_vtu(path, d, study->forward[k], speed_in, 0.0, info);
+              },
+              study->components.forward,
+              [study, f = c.supply.frequency](int k) { return study->rows[k].slip * f; }, ", forward component"});
   out.solver = umfpack_summary(stats);
   out.eddy = std::move(e);
   return out;

@@ -15,35 +15,18 @@
 #include <string>
 #include <vector>
 
+#include "study/csv_rows.hpp"
 #include "support/cli_run.hpp"
 
 namespace fs = std::filesystem;
 using tf::testing::fresh_folder;
+using tf::testing::read_columns;
 using tf::testing::read_summary;
 using tf::testing::turnfield;
 
 namespace {
 
 constexpr double kPi = std::numbers::pi;
-
-/// A CSV file as columns by name.
-std::map<std::string, std::vector<double>> read_columns(const fs::path& path) {
-  std::ifstream in(path);
-  REQUIRE(in.good());
-  std::string line;
-  std::getline(in, line);
-  std::vector<std::string> names;
-  std::stringstream header(line);
-  for (std::string name; std::getline(header, name, ',');) names.push_back(name);
-  std::map<std::string, std::vector<double>> columns;
-  while (std::getline(in, line)) {
-    std::stringstream row(line);
-    std::string cell;
-    for (std::size_t i = 0; i < names.size() && std::getline(row, cell, ','); ++i)
-      columns[names[i]].push_back(std::stod(cell));
-  }
-  return columns;
-}
 
 /// The fundamental of a sequence sampled at equal steps over one period: (2/N) Σ x_k e^{-j 2π k/N}.
 std::complex<double> fundamental(const std::vector<double>& x) {
