@@ -46,8 +46,8 @@ std::vector<svg::Series> per_phase(const MotionResult& r, std::vector<double> Po
 
 Table emf_table(const EmfSummary& e) {
   Table t{"Back-EMF per phase", {"phase", "rms [V]", "peak [V]", "THD [%]"}, {},
-          fmt::format("e = −dψ/dt at the study's speed over the steps. THD = √(Σ_{{h=2..H}} E_h²) / E_1 (IEEE Std 519 "
-                      "and IEC 61000-2-2 definition), H = {} (the steps' Nyquist limit or 50); "
+          fmt::format("e = −dψ/dt at the study's speed over the steps. THD = √(E_2² + … + E_H²) / E_1, E_h the rms of "
+                      "harmonic h (IEEE Std 519 and IEC 61000-2-2 definition), H = {} (the steps' Nyquist limit or 50); "
                       "'–' where the steps do not cover whole electrical periods.",
                       e.highest_order)};
   for (std::size_t k = 0; k < e.rms.size(); ++k)
