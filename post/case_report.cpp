@@ -6,48 +6,18 @@
 #include <utility>
 
 #include <fmt/format.h>
-#include <nlohmann/json.hpp>
-
 #include "post/flux_density.hpp"
 #include "post/space_harmonic_table.hpp"
+#include "post/report_parts.hpp"
+#include "post/space_harmonics.hpp"
 #include "post/svg_plot.hpp"
 
 namespace tf::post {
 namespace {
 
-using nlohmann::json;
 constexpr double kDeg = 180.0 / std::numbers::pi;
 
 std::string num(double v, int digits = 4) { return svg::format_number(v, digits); }
-
-/// Unit of a key by its suffix, as case_json and our tables spell them.
-std::pair<std::string, std::string> split_unit(const std::string& key) {
-  static const std::pair<const char*, const char*> suffixes[] = {
-      {"_S_per_m", "S/m"}, {"_kg_per_m3", "kg/m³"}, {"_A_per_m", "A/m"}, {"_rad_per_s", "rad/s"}, {"_rpm", "rpm"},
-      {"_deg", "°"},       {"_Hz", "Hz"},           {"_m2", "m²"},       {"_ohm", "Ω"},       {"_slots", "slots"},
-      {"_m", "m"},         {"_T", "T"},             {"_H", "H"},         {"_A", "A"},         {"_V", "V"}};
-  for (const auto& [suffix, unit] : suffixes) {
-    const std::string s = suffix;
-    if (key.size() > s.size() && key.compare(key.size() - s.size(), s.size(), s) == 0)
-      return {key.substr(0, key.size() - s.size()), unit};
-  }
-  return {key, ""};
-}
-
-void flatten(const json& j, const std::string& prefix, std::vector<KeyValue>& rows) {
-  if (j.is_object()) {
-    for (const auto& [key, value] : j.items()) flatten(value, prefix.empty() ? key : prefix + "." + key, rows);
-    return;
-  }
-  const auto [key, unit] = split_unit(prefix);
-  std::string text;
-  if (j.is_number()) text = num(j.get<double>(), 6);
-  else if (j.is_string()) text = j.get<std::string>();
-  else if (j.is_array() && j.size() <= 12 && std::all_of(j.begin(), j.end(), [](const json& e) { return e.is_number(); }))
-    for (const auto& e : j) text += (text.empty() ? "" : ", ") + num(e.get<double>(), 6);
-  else text = j.dump();
-  rows.push_back({key, text, unit});
-}
 
 /// Unwrapped mechanical axis angle [deg] of the fundamental over the steps (continuous, no jumps of 360/p).
 std::vector<double> unwrapped_axis(const StudyResult& r, int p) {
@@ -141,16 +111,19 @@ void add_gap_figures(Page& page, const ReportContext& x, const StudyResult& r, c
   for (auto& f : fundamental_figures(r, x.pole_pairs, when, when_axis)) page.figures.push_back(std::move(f));
 }
 
+/// Ratios and ripples are compared with 1 (their fundamental), the axis deviation with the axis step.
 std::vector<KeyValue> field_rows(const RotationMetrics& m, double winding_factor) {
+  const auto percent = [](double v) { return svg::format_number_against(100 * v, 100); };
   std::vector<KeyValue> rows = {
       {"air-gap B_r fundamental (mean over steps)", num(m.mean_fundamental), "T"},
-      {"amplitude ripple", num(100 * m.amplitude_ripple), "%"},
-      {"peak-field ripple", num(100 * m.peak_ripple), "%"},
+      {"amplitude ripple", percent(m.amplitude_ripple), "%"},
+      {"peak-field ripple", percent(m.peak_ripple), "%"},
       {"peak |B_r| min – max", num(m.min_peak) + " – " + num(m.max_peak), "T"},
-      {"rotation uniformity (worst axis-step deviation)", num(m.rotation_uniformity_deg), "° mech."},
+      {"rotation uniformity (worst axis-step deviation)",
+       svg::format_number_against(m.rotation_uniformity_deg, m.expected_step_deg), "° mech."},
       {"expected axis step", num(m.expected_step_deg), "° mech."},
-      {"backward/forward ratio", num(m.backward_forward_ratio), ""},
-      {"harmonic distortion (mean over steps)", num(100 * m.mean_distortion), "%"}};
+      {"backward/forward ratio", svg::format_number_against(m.backward_forward_ratio, 1), ""},
+      {"harmonic distortion (mean over steps)", percent(m.mean_distortion), "%"}};
   if (std::isfinite(winding_factor)) rows.push_back({"winding factor (fundamental)", num(winding_factor), ""});
   return rows;
 }
@@ -180,21 +153,15 @@ Eigen::VectorXd flux_density_magnitude(const mesh::Mesh& m, const Eigen::VectorX
   return flux_density(m, a).rowwise().norm();
 }
 
-Section inputs_section(const std::string& inputs_json) {
-  Section s{"Inputs (the case as read)", {}, "Units as read from each key's name; SI otherwise."};
-  const json j = json::parse(inputs_json, nullptr, false);
-  if (j.is_discarded()) s.rows.push_back({"inputs", "not available", ""});
-  else flatten(j, "", s.rows);
-  return s;
-}
-
 namespace {
 
 /// Torque rows and the torque figure of a study whose rotor turns.
 void add_torque(Page& page, std::vector<KeyValue>& rows, const MotionResult& r) {
   const auto torque_row = [&](const char* name, const TorqueStats& t) {
-    rows.push_back({std::string("torque, ") + name + ", mean", num(t.mean, 5), "N·m"});
-    rows.push_back({std::string("torque, ") + name + ", min – max", num(t.min, 5) + " – " + num(t.max, 5), "N·m"});
+    const double largest = std::max(std::abs(t.min), std::abs(t.max));
+    const auto text = [&](double v) { return svg::format_number_against(v, largest, 5); };
+    rows.push_back({std::string("torque, ") + name + ", mean", text(t.mean), "N·m"});
+    rows.push_back({std::string("torque, ") + name + ", min – max", text(t.min) + " – " + text(t.max), "N·m"});
   };
   torque_row("Arkkio", r.arkkio);
   rows.push_back({"torque ripple (Arkkio, peak-to-peak / |mean|)", std::isnan(r.arkkio.ripple) ? "–" : num(100 * r.arkkio.ripple), "%"});
@@ -210,36 +177,6 @@ void add_torque(Page& page, std::vector<KeyValue>& rows, const MotionResult& r) 
   if (std::any_of(work.y.begin(), work.y.end(), [](double v) { return std::isfinite(v); })) torque.series.push_back(work);
   torque.series.push_back(arkkio);
   page.figures.push_back({"torque", "Torque on the rotor at each position by three methods.", svg::line_chart(torque)});
-}
-
-/// The per-speed table, headline rows and figures of an eddy-current study.
-void add_speeds(Page& page, std::vector<KeyValue>& head, const std::vector<SpeedResult>& rows) {
-  svg::Series t{"Arkkio", {}, {}, false, true}, tl{"cross-check", {}, {}, true, true};
-  svg::Series l{"integrated", {}, {}, false, true}, lb{"power balance", {}, {}, true, true};
-  Table table{"Per speed", {"speed [rad/s]", "slip", "torque Arkkio [N·m]", "torque cross-check [N·m]",
-                            "rotor loss [W]", "rotor loss, balance [W]", "input power [W]"}, {}, ""};
-  std::size_t best = 0;
-  for (std::size_t k = 0; k < rows.size(); ++k) {
-    const SpeedResult& s = rows[k];
-    for (auto* series : {&t, &tl, &l, &lb}) series->x.push_back(s.rotor_speed);
-    t.y.push_back(s.torque), tl.y.push_back(s.torque_lorentz);
-    l.y.push_back(s.rotor_loss), lb.y.push_back(s.rotor_loss_balance);
-    table.rows.push_back({num(s.rotor_speed, 6), num(s.slip, 5), num(s.torque, 5), num(s.torque_lorentz, 5),
-                          num(s.rotor_loss, 5), num(s.rotor_loss_balance, 5), num(s.input_power, 5)});
-    if (std::abs(s.torque) > std::abs(rows[best].torque)) best = k;
-  }
-  head.push_back({"rotor speeds", std::to_string(rows.size()), ""});
-  if (!rows.empty()) {
-    head.push_back({"largest |torque| (Arkkio)", num(rows[best].torque, 5), "N·m"});
-    head.push_back({"at speed", num(rows[best].rotor_speed, 6), "rad/s"});
-    head.push_back({"at slip", num(rows[best].slip, 4), ""});
-  }
-  page.tables.push_back(std::move(table));
-  page.figures.push_back({"torque_speed", "Time-averaged torque against rotor speed: Arkkio's method and its cross-check.",
-                          svg::line_chart({"Torque against rotor speed", {"rotor speed", "rad/s"}, {"torque", "N·m"}, {t, tl}, {}})});
-  page.figures.push_back({"rotor_loss", "Rotor loss against rotor speed: integrated from the induced currents, and "
-                                        "from the power balance (input − stator loss − mechanical power).",
-                          svg::line_chart({"Rotor loss against rotor speed", {"rotor speed", "rad/s"}, {"rotor loss", "W"}, {l, lb}, {}})});
 }
 
 /// The space harmonics of a turning field at 0.5 % of the fundamental or more, in electrical orders.
@@ -258,7 +195,8 @@ std::string headline_note(const RunRecord& r) {
             "band (main value); circle: on the mid-gap circle; virtual work: co-energy difference of neighbouring "
             "rotor positions. ";
   if (r.eddy) note += "Time averages over a period of the peak phasors; torque over the stack length, counter-clockwise positive. ";
-  if (r.motion) note += "Each step solved on its own with Newton's method (nonlinear iron where B-H curves are given).";
+  if (r.motion) note += "Each step solved on its own with Newton's method (nonlinear iron where B-H curves are given). ";
+  note += "Values below 1e-9 of the largest value they are shown with (round-off) are shown as 0.";
   return note;
 }
 
@@ -266,6 +204,7 @@ std::string headline_note(const RunRecord& r) {
 
 Page study_page(const ReportContext& x, const RunRecord& r) {
   Page page = base_page(x, r.study + " study, solved by " + r.strategy);
+  page.warnings = r.warnings;
   std::vector<KeyValue> rows;
   if (r.motion && r.rotor_turns) add_torque(page, rows, *r.motion);
   if (r.motion) rows.push_back({"Newton iterations per solve", num(r.motion->mean_newton_iterations, 3), ""});
@@ -275,7 +214,8 @@ Page study_page(const ReportContext& x, const RunRecord& r) {
     rows.push_back({"air-gap B_r fundamental (mean over steps)", num(r.field->metrics.mean_fundamental), "T"});
     rows.push_back({"peak-field ripple", num(100 * r.field->metrics.peak_ripple), "%"});
   }
-  if (r.eddy) add_speeds(page, rows, r.eddy->rows);
+  if (r.motion) add_motion_parts(page, rows, *r.motion, x.pole_pairs, r.rotor_turns);
+  if (r.eddy) add_speed_parts(page, rows, r.eddy->rows);
   page.sections.insert(page.sections.begin(), Section{"Headline numbers", rows, headline_note(r)});
   if (r.field && r.field_rotates) page.tables.push_back(harmonic_table(*r.field, r));
   if (r.field) {

@@ -32,6 +32,13 @@ Eigen::VectorXd inverse_park_transform(const DqPair& dq, int n_phases, double th
   return x;
 }
 
+DqPair dq_inductances(const Eigen::MatrixXd& l, double theta_e) {
+  const int m = static_cast<int>(l.rows());
+  const Eigen::VectorXd d = l * inverse_park_transform({1.0, 0.0}, m, theta_e);
+  const Eigen::VectorXd q = l * inverse_park_transform({0.0, 1.0}, m, theta_e);
+  return {park_transform(d, theta_e).d, park_transform(q, theta_e).q};
+}
+
 Eigen::VectorXd periodic_derivative(const Eigen::VectorXd& samples, double period) {
   // Direct DFT: flux-linkage sequences are a few hundred samples at most, O(N^2) is nothing.
   const Eigen::Index n = samples.size();

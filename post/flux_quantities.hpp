@@ -26,6 +26,13 @@ DqPair park_transform(const Eigen::VectorXd& values, double theta_e);
 /// The inverse for a set without zero sequence: x_k = d cos(theta_e - k delta) - q sin(theta_e - k delta).
 Eigen::VectorXd inverse_park_transform(const DqPair& dq, int n_phases, double theta_e);
 
+/// d- and q-axis inductances [H] of the phase inductance matrix l (#phases by #phases [H]) with the
+/// d axis at theta_e [rad electrical]: L_d is psi_d of the unit d-axis current set (d = 1, q = 0
+/// through inverse_park_transform), L_q psi_q of the unit q-axis set. For a machine whose matrix is
+/// L_kj = (2/m) [L_d cos(theta_e - k delta) cos(theta_e - j delta) + L_q sin(..k..) sin(..j..)] it
+/// returns L_d and L_q exactly.
+DqPair dq_inductances(const Eigen::MatrixXd& l, double theta_e);
+
 /// d/dtheta of N equally spaced samples of a periodic function over one period [rad]
 /// (samples at theta_0 + j period / N, j = 0..N-1), by spectral differentiation (discrete Fourier
 /// series differentiated term by term): exact for band-limited data of orders below N/2 per period.

@@ -17,9 +17,10 @@ body{font-family:'DejaVu Sans',Verdana,Arial,sans-serif;color:#222;background:#f
 main{max-width:1000px;margin:0 auto;padding:24px 32px 48px;background:#fff}
 h1{font-size:24px;margin:8px 0 4px} h2{font-size:18px;margin:28px 0 8px;border-bottom:1px solid #ddd;padding-bottom:4px}
 .subtitle{color:#555;margin:0 0 16px}
+.warnings{border:2px solid #b26a00;background:#fff4e0;color:#4a2c00;padding:8px 14px 8px 30px;border-radius:4px}
 .caution{border:2px solid #b3261e;background:#fdecea;color:#5f1410;padding:10px 14px;border-radius:4px;font-weight:bold}
 table{border-collapse:collapse;font-size:13px;margin:4px 0 8px}
-th,td{border:1px solid #d8dbe0;padding:4px 8px;text-align:left;vertical-align:top}
+th,td{border:1px solid #d8dbe0;padding:4px 8px;text-align:left;vertical-align:top;overflow-wrap:break-word}
 th{background:#eef1f5} td.num{text-align:right;font-variant-numeric:tabular-nums}
 .note{color:#555;font-size:13px;max-width:900px}
 .scroll{overflow-x:auto;max-width:100%}
@@ -76,6 +77,11 @@ std::string render_html(const Page& page) {
       html_escape(page.title), kStyle);
   if (!page.subtitle.empty()) out += fmt::format("<p class=\"subtitle\">{}</p>\n", html_escape(page.subtitle));
   out += fmt::format("<p class=\"caution\" id=\"caution\">{}</p>\n", html_escape(kSafetyCaution));
+  if (!page.warnings.empty()) {
+    out += "<ul class=\"warnings\" id=\"warnings\">\n";
+    for (const std::string& w : page.warnings) out += "<li>warning: " + html_escape(w) + "</li>\n";
+    out += "</ul>\n";
+  }
   for (const Section& s : page.sections) out += render_section(s);
   for (const Table& t : page.tables) out += render_table(t);
   if (!page.figures.empty()) out += "<h2>Figures</h2>\n";

@@ -43,6 +43,7 @@ struct Figure {
 struct Page {
   std::string title;
   std::string subtitle;  ///< e.g. the study kind and model; may be empty
+  std::vector<std::string> warnings;  ///< shown under the caution, before any section (the run's warnings)
   std::vector<Section> sections;
   std::vector<Table> tables;
   std::vector<Figure> figures;

@@ -49,6 +49,10 @@ void derive_flux_quantities(MotionResult& r, const StepSpan& x) {
     const DqPair dq = park_transform(psi, d_axis);
     step.flux_d = dq.d;
     step.flux_q = dq.q;
+    if (n_phases >= 2 && step.inductance_frozen.rows() == n_phases) {
+      step.inductance_dq_apparent = dq_inductances(step.inductance_frozen, d_axis);
+      step.inductance_dq_incremental = dq_inductances(step.inductance_incremental, d_axis);
+    }
   }
   const double periods = x.span * p / (2 * std::numbers::pi);
   const bool periodic = std::abs(periods - std::round(periods)) < 1e-9 && periods >= 1.0;

@@ -6,6 +6,7 @@
 
 #include <Eigen/Core>
 
+#include "post/flux_quantities.hpp"
 #include "post/study.hpp"
 
 namespace tf::post {
@@ -21,6 +22,8 @@ struct PositionStep {
   std::vector<double> back_emf;       ///< per phase [V] at the study's speed: -dψ/dt
   Eigen::MatrixXd inductance_frozen;       ///< #phases by #phases [H], secant (frozen) permeability
   Eigen::MatrixXd inductance_incremental;  ///< #phases by #phases [H], differential permeability
+  DqPair inductance_dq_apparent;     ///< L_d, L_q [H] of inductance_frozen on the rotor's d axis (m >= 2)
+  DqPair inductance_dq_incremental;  ///< the same of inductance_incremental
   int newton_iterations = 0;
   double newton_residual = 0.0;  ///< relative
 };
@@ -61,7 +64,7 @@ struct StepSpan {
   double rotor_d_axis = 0.0;  ///< mechanical angle [rad] of the rotor's d axis at rest
 };
 
-/// Fills flux_d, flux_q (Park transform on the rotor's d axis) and back_emf (-dψ/dt at r.speed) of
+/// Fills flux_d, flux_q (Park transform on the rotor's d axis), the dq inductances and back_emf (-dψ/dt at r.speed) of
 /// every step from its flux linkages: spectral differentiation when the steps cover whole
 /// electrical periods (ψ is then periodic over the span), central differences otherwise.
 void derive_flux_quantities(MotionResult& r, const StepSpan& s);

@@ -14,7 +14,7 @@ Table space_harmonic_table(const std::vector<SpaceHarmonic>& harmonics, const st
           "Orders under 0.5 % of the fundamental are in space_harmonics.csv only."};
   for (const SpaceHarmonic& h : harmonics)
     if (h.relative >= 0.005)
-      t.rows.push_back({num(h.electrical_order), std::to_string(h.order), num(h.amplitude), num(100 * h.relative, 3),
+      t.rows.push_back({num(h.electrical_order), std::to_string(h.order), num(h.amplitude), svg::format_number_against(100 * h.relative, 100, 3),
                         direction(h), num(h.speed_rpm, 5), num(h.winding_factor)});
   return t;
 }

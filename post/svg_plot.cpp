@@ -33,6 +33,42 @@ std::string format_number(double v, int digits) {
   return fmt::format("{:.{}g}", v, digits);
 }
 
+std::string format_number_against(double v, double largest, int digits) {
+  if (std::isfinite(v) && std::abs(v) < kRoundOff * std::abs(largest)) return "0";
+  return format_number(v, digits);
+}
+
+std::vector<double> angle_ticks(double lo, double hi) {
+  if (!std::isfinite(lo) || !std::isfinite(hi)) return {0.0, 360.0};
+  if (hi < lo) std::swap(lo, hi);
+  for (double step : {1.0, 2.0, 5.0, 10.0, 15.0, 30.0, 45.0, 90.0, 180.0}) {
+    const double first = step * std::floor(lo / step + 1e-9), last = step * std::ceil(hi / step - 1e-9);
+    if ((last - first) / step > 8.0 + 1e-9) continue;
+    std::vector<double> ticks;
+    for (double t = first; t <= last + 1e-9 * step; t += step) ticks.push_back(t);
+    if (ticks.size() < 2) ticks.push_back(first + step);
+    return ticks;
+  }
+  return nice_ticks(lo, hi);  // more than four turns: plain ticks
+}
+
+std::vector<double> log_ticks(double lo, double hi) {
+  if (!(lo > 0.0) || !std::isfinite(hi)) return {1.0, 10.0};
+  if (hi < lo) std::swap(lo, hi);
+  const int first = static_cast<int>(std::floor(std::log10(lo) + 1e-9)), last = static_cast<int>(std::ceil(std::log10(hi) - 1e-9));
+  const bool sparse = last - first > 4;
+  std::vector<double> ticks;
+  for (int e = first; e <= last + 1; ++e)
+    for (double m : {1.0, 2.0, 5.0}) {
+      if (sparse && m != 1.0) continue;
+      const double t = m * std::pow(10.0, e);
+      if (t <= lo * (1 + 1e-9)) ticks = {t};  // the last tick at or below lo starts the axis
+      else ticks.push_back(t);
+      if (t >= hi * (1 - 1e-9) && ticks.size() >= 2) return ticks;
+    }
+  return ticks;
+}
+
 std::vector<double> nice_ticks(double lo, double hi, int target) {
   if (!std::isfinite(lo) || !std::isfinite(hi)) return {0.0, 1.0};
   if (hi < lo) std::swap(lo, hi);
@@ -83,27 +119,57 @@ std::string polyline_path(const Frame& f, const std::vector<double>& x, const st
 
 }  // namespace
 
+namespace {
+
+/// The series as drawn: x mapped to log10 x on a logarithmic axis (points with x <= 0 dropped).
+std::vector<Series> drawn_series(const LineChart& c) {
+  if (!c.log_x) return c.series;
+  std::vector<Series> out = c.series;
+  for (Series& s : out)
+    for (std::size_t i = 0; i < s.x.size(); ++i) s.x[i] = s.x[i] > 0.0 ? std::log10(s.x[i]) : std::nan("");
+  return out;
+}
+
+/// The x ticks where they are drawn (log10 of the values on a log axis) and their labels.
+std::pair<std::vector<double>, std::vector<std::string>> x_axis_ticks(const LineChart& c, double lo, double hi,
+                                                                      bool empty) {
+  std::vector<std::string> labels;
+  if (!c.categories.empty()) {  // categories sit half a step inside the frame
+    std::vector<double> at;
+    for (std::size_t i = 0; i < c.categories.size(); ++i) at.push_back(static_cast<double>(i));
+    return {at, c.categories};
+  }
+  if (c.log_x) {
+    std::vector<double> at;
+    for (double t : empty ? log_ticks(1, 10) : log_ticks(std::pow(10.0, lo), std::pow(10.0, hi)))
+      at.push_back(std::log10(t)), labels.push_back(format_number(t));
+    return {at, labels};
+  }
+  if (!c.x_ticks.empty()) return {c.x_ticks, {}};
+  if (c.x.unit.rfind("°", 0) == 0) return {empty ? angle_ticks(0, 360) : angle_ticks(lo, hi), {}};
+  return {empty ? nice_ticks(0, 1) : nice_ticks(lo, hi), {}};
+}
+
+}  // namespace
+
 std::string line_chart(const LineChart& c) {
+  const std::vector<Series> series = drawn_series(c);
   std::vector<const std::vector<double>*> xs, ys;
-  for (const auto& s : c.series) xs.push_back(&s.x), ys.push_back(&s.y);
+  for (const auto& s : series) xs.push_back(&s.x), ys.push_back(&s.y);
   auto [x_lo, x_hi] = finite_range(xs);
   const auto [y_lo, y_hi] = finite_range(ys);
   const bool empty = std::isnan(x_lo) || std::isnan(y_lo);
-  std::vector<double> x_ticks = !c.x_ticks.empty() ? c.x_ticks : empty ? nice_ticks(0, 1) : nice_ticks(x_lo, x_hi);
-  if (!c.categories.empty()) {  // categories sit half a step inside the frame
-    x_ticks.clear();
-    for (std::size_t i = 0; i < c.categories.size(); ++i) x_ticks.push_back(static_cast<double>(i));
-  }
+  const auto [x_ticks, x_labels] = x_axis_ticks(c, x_lo, x_hi, empty);
   const std::vector<double> y_ticks = empty            ? nice_ticks(0, 1)
                                      : c.include_zero ? nice_ticks(std::min(0.0, y_lo), std::max(0.0, y_hi))
                                                       : nice_ticks(y_lo, y_hi);
   Frame f = Frame::around(x_ticks, y_ticks);
   if (!c.categories.empty()) f.x_lo -= 0.5, f.x_hi += 0.5;
   std::string out = open_chart(c.title, kWidth, kHeight);
-  out += draw_axes(f, x_ticks, y_ticks, c.x.text(), c.y.text(), c.categories);
+  out += draw_axes(f, x_ticks, y_ticks, c.x.text(), c.y.text(), x_labels);
   std::vector<LegendEntry> legend;
-  for (std::size_t k = 0; k < c.series.size(); ++k) {
-    const Series& s = c.series[k];
+  for (std::size_t k = 0; k < series.size(); ++k) {
+    const Series& s = series[k];
     const std::string colour = series_colour(static_cast<int>(k));
     const std::string d = polyline_path(f, s.x, s.y);
     if (!d.empty())

@@ -37,6 +37,8 @@ struct LineChart {
   std::vector<std::string> categories;
   bool include_zero = false;  ///< y axis reaches down (or up) to 0, so small changes look small
   std::vector<double> x_ticks = {};  ///< fixed x ticks, e.g. 0, 60, …, 360°; empty: nice ticks of the data
+  /// x on a logarithmic scale (every x > 0; points with x <= 0 are left out), ticks 1, 2, 5 per decade.
+  bool log_x = false;
 };
 std::string line_chart(const LineChart& c);
 
@@ -100,6 +102,16 @@ inline constexpr int kColourBins = 32;
 /// intervals; the first tick is <= lo and the last >= hi.
 std::vector<double> nice_ticks(double lo, double hi, int target = 5);
 
+/// Ticks of an angle axis [deg]: steps of 1, 2, 5, 10, 15, 30, 45, 90 or 180 degrees, at most
+/// eight intervals, from a multiple of the step at or below lo to one at or above hi; a whole turn
+/// sampled 0 .. 355 ends at 360. Line charts use them for an x axis whose unit starts with "°".
+std::vector<double> angle_ticks(double lo, double hi);
+
+/// Ticks of a logarithmic axis over [lo, hi] (0 < lo <= hi): 1, 2 and 5 times each power of ten
+/// (only the powers of ten when that leaves more than four decades), from the largest at or below
+/// lo to the smallest at or above hi.
+std::vector<double> log_ticks(double lo, double hi);
+
 /// Bin index 0 .. n_bins-1 of value v over [lo, hi] (values outside are clamped; lo == hi: bin 0).
 int colour_bin(double v, double lo, double hi, int n_bins);
 
@@ -111,5 +123,11 @@ std::string escape(const std::string& text);
 
 /// A number with `digits` significant digits, without trailing zeros ("0.25", "1e-05").
 std::string format_number(double v, int digits = 4);
+
+/// Below this fraction of the largest value it is shown with, a value is round-off and prints as 0.
+inline constexpr double kRoundOff = 1e-9;
+
+/// format_number, but "0" when |v| < kRoundOff |largest| (a ripple of 5.8e-13 beside a fundamental of 1).
+std::string format_number_against(double v, double largest, int digits = 4);
 
 }  // namespace tf::post::svg

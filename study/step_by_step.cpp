@@ -14,6 +14,7 @@
 #include "post/flux_density.hpp"
 #include "post/field_drawing.hpp"
 #include "post/iron_loss.hpp"
+#include "post/saturation.hpp"
 #include "post/study.hpp"
 #include "post/torque.hpp"
 #include "solver/coefficients.hpp"
@@ -106,11 +107,24 @@ std::optional<post::FluxHistory> flux_history(const input::Case& c, const mesh::
   return h;
 }
 
+/// What is gathered from every step's field besides the step's own results: each triangle's B
+/// (iron loss) and |B| in linear iron (the saturation check); either may be absent.
+struct StepObservers {
+  post::FluxHistory* history = nullptr;
+  post::SaturationWatch* saturation = nullptr;
+};
+
+/// The step's name in a warning: its number and where the rotor or the currents stood.
+std::string step_name(const Context& x, int k) {
+  constexpr double deg = 180.0 / std::numbers::pi;
+  return input::rotor_turns(x.c.study.kind) ? fmt::format("step {}, rotor at {:.4g}° mech.", k, x.plan.rotor_angle[k] * deg)
+                                            : fmt::format("step {}, ωt = {:.4g}° el.", k, x.plan.electrical_angle[k] * deg);
+}
+
 /// Every step solved in order; the nodal fields of the steps in `kept` are returned in `kept_fields`
-/// and, with a history, every triangle's B at every step.
+/// and every step's B handed to the observers.
 post::MotionResult solve_steps(const Context& x, solver::MotionSolver& s, const std::vector<int>& kept,
-                               std::vector<Eigen::VectorXd>& kept_fields, post::FluxHistory* history,
-                               Progress& progress) {
+                               std::vector<Eigen::VectorXd>& kept_fields, StepObservers observe, Progress& progress) {
   post::MotionResult r;
   for (int j = 0; j < x.c.study.n_gap_points; ++j)
     r.gap.sample_angles.push_back(2 * std::numbers::pi * j / x.c.study.n_gap_points);
@@ -122,11 +136,13 @@ post::MotionResult solve_steps(const Context& x, solver::MotionSolver& s, const 
     r.steps.push_back(solve_step(x, s, k, field, gap));
     r.gap.steps.push_back(std::move(gap));
     if (std::find(kept.begin(), kept.end(), k) != kept.end()) kept_fields.push_back(field);
-    if (history) {
-      const Eigen::MatrixX2d b = post::flux_density(x.m, field);
-      history->bx.col(k) = b.col(0);
-      history->by.col(k) = b.col(1);
+    if (!observe.history && !observe.saturation) continue;
+    const Eigen::MatrixX2d b = post::flux_density(x.m, field);
+    if (observe.history) {
+      observe.history->bx.col(k) = b.col(0);
+      observe.history->by.col(k) = b.col(1);
     }
+    if (observe.saturation) observe.saturation->add_step(b.rowwise().norm(), step_name(x, k));
   }
   post::finish_rotation_metrics(r.gap, x.c.winding.pole_pairs());
   return r;
@@ -215,7 +231,11 @@ Solved solve_step_by_step(const StudyInput& in) {
   const std::vector<int> kept = kept_steps(files, in.options.report_step);
   std::vector<Eigen::VectorXd> fields;
   std::optional<post::FluxHistory> history = flux_history(c, in.m, plan);
-  post::MotionResult r = solve_steps(x, solver, kept, fields, history ? &*history : nullptr, in.progress);
+  // Linear iron (no B-H curve) is checked for saturation at every step solved.
+  post::SaturationWatch saturation(in.m, post::linear_iron_regions(solver::region_coefficients(in.m, c.materials)));
+  post::MotionResult r = solve_steps(x, solver, kept, fields,
+                                     {history ? &*history : nullptr, saturation.idle() ? nullptr : &saturation},
+                                     in.progress);
   r.speed = study_speed(c);
   const solver::MotionStats stats = solver.stats();
   post::derive_flux_quantities(r, {c.winding.pole_pairs(), plan.span, in.w.phase_a_axis, plan.rotor_d_axis});
@@ -233,6 +253,7 @@ Solved solve_step_by_step(const StudyInput& in) {
   out.load_angle = plan.load_angle;
   if (out.rotor_turns)
     if (std::string w = sampling_warning(r, plan); !w.empty()) out.warnings.push_back(std::move(w));
+  for (auto& w : saturation.warnings(fmt::format("all {} steps", r.steps.size()))) out.warnings.push_back(std::move(w));
   out.solver = {"CHOLMOD supernodal Cholesky per step; Newton-Raphson with the consistent Jacobian where B-H curves "
                 "are given",
                 stats.n_dofs, -1, -1, stats.n_solves, r.mean_newton_iterations,

@@ -6,14 +6,30 @@
 
 #include <fmt/format.h>
 
+#include "post/saturation.hpp"
 #include "post/study.hpp"
 #include "post/vtu.hpp"
+#include "solver/coefficients.hpp"
 #include "solver/phase_fields.hpp"
 #include "solver/stopwatch.hpp"
 #include "study/drive.hpp"
 #include "study/solved.hpp"
 
 namespace tf::study {
+namespace {
+
+/// Linear iron above 2 T at any step (every step: superposing the phase fields costs little).
+std::vector<std::string> saturation_warnings(const StudyInput& in, const solver::PhaseFields& fields,
+                                             const post::StudyResult& r) {
+  post::SaturationWatch watch(in.m, post::linear_iron_regions(solver::region_coefficients(in.m, in.c.materials)));
+  if (watch.idle()) return {};
+  for (std::size_t k = 0; k < r.steps.size(); ++k)
+    watch.add_step(post::flux_density_magnitude(in.m, solver::superpose(fields, r.steps[k].currents)),
+                   fmt::format("step {}", k));
+  return watch.warnings(fmt::format("all {} steps", r.steps.size()));
+}
+
+}  // namespace
 
 Solved solve_by_superposition(const StudyInput& in) {
   const input::Case& c = in.c;
@@ -37,6 +53,7 @@ Solved solve_by_superposition(const StudyInput& in) {
   out.field_rotates = true;
   out.drive_json = drive_to_json(supply, c.winding.n_phases, drive);
   out.notes = drive_notes(supply, c.winding.n_phases, drive);
+  out.warnings = saturation_warnings(in, *fields, *out.field);
 
   const std::vector<int> files = field_steps(in, c.study.n_steps);
   // One drawing of the whole machine serves every file: the rotor stands still.

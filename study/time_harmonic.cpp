@@ -10,6 +10,7 @@
 #include <fmt/format.h>
 
 #include "post/eddy_output.hpp"
+#include "post/saturation.hpp"
 #include "solver/coefficients.hpp"
 #include "solver/time_harmonic.hpp"
 #include "solver/stopwatch.hpp"
@@ -74,6 +75,18 @@ std::function<void(int, int)> counter(const StudyInput& in, std::string what) {
   return [&progress = in.progress, what = std::move(what)](int done, int total) { progress.count(what, done, total); };
 }
 
+/// Linear iron above 2 T at any speed: |B| per triangle of each speed's field (`peak_b`), peak over a period.
+void warn_saturation(const StudyInput& in, const solver::RegionCoefficients& k, std::function<Eigen::VectorXd(int)> peak_b,
+                     const char* what, std::vector<std::string>& warnings) {
+  post::SaturationWatch watch(in.m, post::linear_iron_regions(k));
+  if (watch.idle()) return;
+  const std::vector<double>& speeds = in.c.study.rotor_speeds;
+  for (std::size_t i = 0; i < speeds.size(); ++i)
+    watch.add_step(peak_b(static_cast<int>(i)), fmt::format("speed {} ({:.4g} rad/s)", i, speeds[i]));
+  for (auto& w : watch.warnings(fmt::format("every one of the {} speeds, {}", speeds.size(), what)))
+    warnings.push_back(std::move(w));
+}
+
 post::SolverSummary umfpack_summary(const solver::TimeHarmonicStats& stats) {
   return {"UMFPACK complex LU; one symbolic analysis, one factorization per speed", stats.n_dofs, -1, -1, -1,
           std::numeric_limits<double>::quiet_NaN(),
@@ -105,6 +118,8 @@ Solved solve_by_motion_term(const StudyInput& in) {
   e.method = "motion term sigma omega_r dA/dtheta (exact for rotationally invariant rotors)";
   e.skin = skin(in, k);
   warn_coarse_skins(e.skin, out.warnings);
+  warn_saturation(in, k, [&](int i) { return post::peak_flux_density(in.m, (*solutions)[i]); },
+                  "the peak |B| over a period", out.warnings);
   out.seconds.emplace_back("post", clock.lap());
   add_fields(in, out, e.rows,
              {[solutions](int i) { return (*solutions)[i]; },
@@ -137,6 +152,13 @@ Solved solve_by_slip_method(const StudyInput& in) {
   const std::vector<bool>& on = k.moves_with_rotor;
   e.skin = skin(in, k);
   warn_coarse_skins(e.skin, out.warnings);
+  // The two components turn at different speeds: the sum of their peaks bounds the peak of the whole.
+  warn_saturation(in, k,
+                  [&](int i) {
+                    return Eigen::VectorXd(post::peak_flux_density(in.m, study->forward[i]) +
+                                           post::peak_flux_density(in.m, study->backward[i]));
+                  },
+                  "the peak |B| of the forward plus that of the backward component", out.warnings);
   // The field files show the forward component in the rotor frame (J = -j s omega sigma A).
   add_fields(in, out, study->rows,
              {[study](int k) { return study->forward[k]; },

@@ -15,6 +15,7 @@
 #include <nlohmann/json.hpp>
 
 #include "input/case_reader.hpp"
+#include "support/bundled_case.hpp"
 #include "study/mesh_plan.hpp"
 #include "study/run.hpp"
 #include "study/strategy.hpp"
@@ -24,28 +25,12 @@ using namespace tf;
 
 namespace {
 
-input::Case bundled(const std::string& name) {
-  return input::read_case(std::string(TF_SOURCE_DIR) + "/cases/" + name + ".toml");
-}
+using testing::bundled;
+using testing::text_of;
 
-std::string text_of(const fs::path& path) {
-  std::ifstream in(path);
-  std::stringstream s;
-  s << in.rdbuf();
-  return s.str();
-}
-
-/// Runs a case on a coarse mesh with `steps` steps into a fresh folder of its own (test cases run as
-/// processes at once: no two may share one); returns the folder.
-fs::path run_coarse(input::Case c, int steps, const std::string& folder, study::RunOutcome& outcome) {
-  c.mesh.fineness = 0.5;
-  input::override_steps(c, steps);
-  c.study.n_field_files = 0;
-  const fs::path dir = fs::temp_directory_path() / ("turnfield_pipeline_" + folder);
-  fs::remove_all(dir);
-  std::ostringstream quiet;
-  outcome = study::run_study(c, {dir, false, 0}, quiet);
-  return dir;
+/// A coarse run in a folder of its own (turnfield_pipeline_<folder>).
+fs::path run_coarse(const input::Case& c, int steps, const std::string& folder, study::RunOutcome& outcome) {
+  return testing::run_coarse(c, steps, "pipeline_" + folder, outcome);
 }
 
 }  // namespace
