@@ -27,8 +27,11 @@ void add_fields(const StudyInput& in, Solved& out, const std::vector<double>& sp
   for (int k : field_steps(in, static_cast<int>(speeds.size())))
     out.frames.push_back({k, static_cast<double>(k), [write, k](const std::filesystem::path& path) { write(k, path); }});
   const int shown = in.options.report_step;
-  out.section = {&in.m, post::peak_flux_density(in.m, field(shown)),
-                 fmt::format("speed {} ({:.4g} rad/s), peak over a period{}", shown, speeds[shown], what)};
+  const Eigen::VectorXcd a = field(shown);
+  out.section = post::cross_section({in.m, in.w, a.real(), post::peak_flux_density(in.m, a), 0.0,
+                                     fmt::format("speed {} ({:.4g} rad/s), |B| peak over a period{}", shown,
+                                                 speeds[shown], what),
+                                     "Re(A_z), the field at ωt = 0"});
 }
 
 /// Skin depths per conducting region, with the permeability and conductivity each region was solved with.
