@@ -69,15 +69,33 @@ struct MapFrame {
   double py(double y) const { return y0 + scale * (hi(1) - y); }
 };
 
-/// "M x y L x y …" of a polyline (Z appended when closed), points that round to the last drawn one skipped.
+/// A length in tenths of a pixel as SVG path text: "12" -> "1.2", "-3" -> "-.3", "20" -> "2".
+std::string tenths(long v) {
+  const long a = std::abs(v);
+  std::string out = v < 0 ? "-" : "";
+  if (a >= 10 || a == 0) out += std::to_string(a / 10);
+  if (a % 10 != 0) out += "." + std::to_string(a % 10);
+  return out;
+}
+
+/// "M x y l dx dy …" of a polyline (Z appended when closed): the first point absolute, the rest
+/// relative steps on a 0.1 px grid (short numbers: half the text of absolute coordinates), a
+/// point that rounds onto the last one skipped.
 void append_path(std::string& d, const Polyline& line, const MapFrame& f, bool close) {
-  std::string last;
+  long x0 = 0, y0 = 0;
   for (std::size_t i = 0; i < line.size(); ++i) {
-    const std::string p = fmt::format("{:.1f} {:.1f}", f.px(line[i].x()), f.py(line[i].y()));
-    if (p == last) continue;
-    d += (i == 0 ? "M" : "L") + p;
-    last = p;
+    const long x = std::lround(10 * f.px(line[i].x())), y = std::lround(10 * f.py(line[i].y()));
+    if (i == 0) {
+      d += "M" + tenths(x) + " " + tenths(y) + "l";
+    } else {
+      if (x == x0 && y == y0) continue;
+      const std::string dx = tenths(x - x0), dy = tenths(y - y0);
+      if (d.back() != 'l' && dx[0] != '-') d += ' ';
+      d += dx + (dy[0] == '-' ? "" : " ") + dy;
+    }
+    x0 = x, y0 = y;
   }
+  if (d.back() == 'l') d.pop_back();  // a single point
   if (close) d += 'Z';
 }
 

@@ -20,40 +20,33 @@
 #include "post/svg_plot.hpp"
 #include "post/sweep_report.hpp"
 #include "support/polar_mesh.hpp"
+#include "support/svg_paths.hpp"
 
 using namespace tf;
 namespace svg = tf::post::svg;
 
 namespace {
 
-struct Point {
-  double x, y;
-};
+using testing::Extent;
+using testing::Point;
+using testing::subpaths;
 
-/// The points of every "M x y L x y … [Z]" path with class="data", in order.
+/// The points of every path with class="data", in order, its subpaths one after the other.
 std::vector<std::vector<Point>> data_paths(const std::string& s) {
   std::vector<std::vector<Point>> out;
   const std::regex path(R"re(<path class="data"[^>]*\bd="([^"]*)")re");
   for (auto it = std::sregex_iterator(s.begin(), s.end(), path); it != std::sregex_iterator(); ++it) {
-    std::string d = (*it)[1];
-    for (char& ch : d)
-      if (ch == 'M' || ch == 'L' || ch == 'Z') ch = ' ';
-    std::istringstream in(d);
     std::vector<Point> points;
-    for (Point p{}; in >> p.x >> p.y;) points.push_back(p);
+    for (const auto& sub : subpaths((*it)[1])) points.insert(points.end(), sub.begin(), sub.end());
     out.push_back(points);
   }
   return out;
 }
 
-struct Extent {
-  double x_lo = 1e9, x_hi = -1e9, y_lo = 1e9, y_hi = -1e9;
-};
 Extent extent(const std::vector<std::vector<Point>>& paths) {
   Extent e;
   for (const auto& path : paths)
-    for (const auto& p : path)
-      e.x_lo = std::min(e.x_lo, p.x), e.x_hi = std::max(e.x_hi, p.x), e.y_lo = std::min(e.y_lo, p.y), e.y_hi = std::max(e.y_hi, p.y);
+    for (const auto& p : path) e.add(p);
   return e;
 }
 
@@ -63,22 +56,12 @@ double polygon_area(const std::string& s) {
   double total = 0.0;
   const std::regex path(R"re(<path class="data" fill="#[^>]*\bd="([^"]*)")re");
   for (auto it = std::sregex_iterator(s.begin(), s.end(), path); it != std::sregex_iterator(); ++it) {
-    const std::string d = (*it)[1];
-    for (std::size_t at = d.find('M'); at != std::string::npos;) {
-      const std::size_t end = d.find('Z', at);
-      std::string loop = d.substr(at + 1, end - at - 1);
-      for (char& ch : loop)
-        if (ch == 'L') ch = ' ';
-      std::istringstream in(loop);
-      std::vector<Point> p;
-      for (Point q{}; in >> q.x >> q.y;) p.push_back(q);
+    for (const auto& p : subpaths((*it)[1]))
       for (std::size_t i = 0; i < p.size(); ++i) {
         const Point& a = p[i];
         const Point& b = p[(i + 1) % p.size()];
         total += 0.5 * (a.x * b.y - b.x * a.y);
       }
-      at = d.find('M', end);
-    }
   }
   return std::abs(total);
 }
