@@ -158,7 +158,7 @@ void add_parts(const CrossSection& s, const Parts& p, svg::FieldMap& map) {
 
 svg::FieldMap section_map(const CrossSection& s) {
   svg::FieldMap map;
-  map.title = "Cross-section: |B| and flux lines at " + s.when;
+  map.title = "Cross-section at " + s.when;
   map.value = {"|B|", "T"};
   if (s.empty()) return map;
   map.nodes = &s.machine.nodes;

@@ -51,7 +51,7 @@ double weighted_quantile(const Eigen::VectorXd& values, const Eigen::VectorXd& w
 namespace {
 
 constexpr double kMapSize = 600;  // [px], the longer side of the drawn cross-section
-constexpr double kMapLeft = 30, kMapTop = 40, kBarLeft = kMapLeft + kMapSize + 40;
+constexpr double kMapLeft = 30, kMapTop = 58, kBarLeft = kMapLeft + kMapSize + 40;
 constexpr double kBarTop = kMapTop + 26;  // room above the bar for the over-range box
 constexpr double kKeyRow = 18, kKeyTop = kMapTop + kMapSize + 52;
 
@@ -178,12 +178,12 @@ std::string overlay(const MapOverlay& o, const MapFrame& f) {
   return out;
 }
 
-/// The key under the map, two entries a row.
+/// The key under the map, one entry a row (entries run to 80 characters).
 std::string key(const std::vector<MapKey>& entries) {
   std::string out;
   for (std::size_t i = 0; i < entries.size(); ++i) {
     const MapKey& e = entries[i];
-    const double x = kMapLeft + 310 * static_cast<double>(i % 2), y = kKeyTop + kKeyRow * static_cast<double>(i / 2);
+    const double x = kMapLeft, y = kKeyTop + kKeyRow * static_cast<double>(i);
     switch (e.symbol) {
       case MapKey::Symbol::line:
         out += fmt::format("<line x1=\"{:.1f}\" y1=\"{:.1f}\" x2=\"{:.1f}\" y2=\"{:.1f}\" stroke=\"{}\" stroke-width=\"2\"/>",
@@ -208,7 +208,7 @@ std::string key(const std::vector<MapKey>& entries) {
 
 std::string field_map(const FieldMap& c) {
   const double width = kBarLeft + 110;
-  const double height = kKeyTop + kKeyRow * std::ceil(static_cast<double>(c.overlay.key.size()) / 2.0) + 4;
+  const double height = kKeyTop + kKeyRow * static_cast<double>(c.overlay.key.size()) + 4;
   std::string out = open_chart(c.title, width, height);
   out += "<style>.coil-label{font-weight:bold;text-anchor:middle;dominant-baseline:central;paint-order:stroke;"
          "stroke:#fff;stroke-width:2px}</style>\n";
