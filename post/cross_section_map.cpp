@@ -1,6 +1,7 @@
 // The drawing of a CrossSection: which triangle edges outline which part, where each coil side's
 // label and each magnet's arrow go, and the flux lines.
 
+#include <algorithm>
 #include <cmath>
 #include <map>
 
@@ -196,13 +197,16 @@ std::string section_caption(const CrossSection& s) {
       copies == 1 ? "the whole model as solved"
                   : fmt::format("the solved sector unfolded into {} copies{}", copies,
                                 s.machine.symmetry.anti_periodic ? ", every other one with the field's sign reversed" : "");
+  const bool open = std::any_of(s.regions.begin(), s.regions.end(),
+                                [](const mesh::Region& r) { return r.kind == mesh::RegionKind::exterior_image; });
   return fmt::format(
-      "Flux density magnitude |B| per triangle at {}, in {} equal bins from its minimum to its maximum, or to its "
-      "{}th percentile by area where a few triangles reach far above that (they are then magenta and the bar says so: "
-      "one singular corner does not set the scale), with {} flux lines: "
-      "contours of {} equally spaced in flux. Drawn: {}; the open boundary's exterior image is left out. Coil sides "
-      "are outlined in their phase's colour and labelled with phase and current direction.",
-      s.when, svg::kColourBins, svg::format_number(100 * kClipFraction), kFluxLevels, s.a_name, model);
+      "Flux density magnitude |B| per triangle at {}, in {} equal bins from its minimum to its maximum (or to its "
+      "{}th percentile by area when a few triangles reach far above it: those are then magenta and the bar gives the "
+      "maximum, so that one singular corner does not set the scale). Black: {} flux lines, contours of {}, equally "
+      "spaced in flux. Drawn: {}{}. Coil sides are outlined in their phase's colour and labelled with phase and "
+      "current direction.",
+      s.when, svg::kColourBins, svg::format_number(100 * kClipFraction), kFluxLevels, s.a_name, model,
+      open ? "; the open boundary's exterior image is left out" : "");
 }
 
 }  // namespace tf::post
