@@ -32,14 +32,7 @@ std::vector<double> unwrapped_axis(const StudyResult& r, int p) {
 }
 
 Figure cross_section_figure(const CrossSection& s) {
-  svg::FieldMap map;
-  map.title = "Cross-section, |B| at " + s.when;
-  map.value = {"|B|", "T"};
-  if (s.mesh) map.nodes = &s.mesh->nodes, map.triangles = &s.mesh->triangles, map.values = s.b_magnitude;
-  return {"cross_section", "Flux density magnitude |B| per triangle at " + s.when +
-                               ", in " + std::to_string(svg::kColourBins) + " equal bins from its minimum to its maximum "
-                               "(the model as solved: a sector model shows its sector).",
-          svg::field_map(map)};
+  return {"cross_section", section_caption(s), svg::field_map(section_map(s))};
 }
 
 /// B_r against angle at up to four steps spread over the sequence.
@@ -222,7 +215,7 @@ Page study_page(const ReportContext& x, const RunRecord& r) {
     const bool by_rotor = r.motion && r.rotor_turns;
     add_gap_figures(page, x, *r.field, by_rotor ? rotor_angles(*r.motion) : step_angles(*r.field),
                     by_rotor ? svg::Axis{"rotor angle", "° mech."} : svg::Axis{"ωt", "° el."});
-  } else if (x.section.mesh) {
+  } else if (!x.section.empty()) {
     page.figures.push_back(cross_section_figure(x.section));
   }
   page.appendix.push_back(inputs_section(x.inputs_json));

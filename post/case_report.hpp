@@ -8,6 +8,7 @@
 #include <Eigen/Core>
 
 #include "mesh/mesh.hpp"
+#include "post/cross_section.hpp"
 #include "post/eddy_quantities.hpp"
 #include "post/html_report.hpp"
 #include "post/motion_result.hpp"
@@ -15,14 +16,6 @@
 #include "post/summary.hpp"
 
 namespace tf::post {
-
-/// The cross-section drawn in the report: a mesh as it stands (rotor turned where it stood) and
-/// |B| [T] per triangle of it. Without a mesh the figure says "no data".
-struct CrossSection {
-  const mesh::Mesh* mesh = nullptr;
-  Eigen::VectorXd b_magnitude;  ///< #triangles [T]
-  std::string when;             ///< e.g. "step 0 (ωt = 0°)"
-};
 
 /// What every case report shows besides its study's results.
 struct ReportContext {

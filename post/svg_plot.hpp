@@ -9,6 +9,8 @@
 
 #include <Eigen/Core>
 
+#include "post/svg_map_overlay.hpp"
+
 namespace tf::post::svg {
 
 /// Chart size [px] and the plot area inside it; the legend sits right of the plot area.
@@ -87,13 +89,19 @@ struct GroupedBarChart {
 std::string grouped_bar_chart(const GroupedBarChart& c);
 
 /// Mesh triangles coloured by one value each, with a colour bar. Triangles are grouped into
-/// kColourBins bins of equal width over [min, max] and drawn as one <path> per bin.
+/// kColourBins bins of equal width over [min, top] and drawn as one <path> per bin, the
+/// triangles of a bin merged into the polygons they cover. top is the maximum, or with
+/// clip_fraction < 1 the area-weighted quantile of that fraction when the maximum lies more than
+/// 5 % of the range above it (one singular corner does not set the scale); triangles above top
+/// are drawn in kOverRangeColour and the bar says so.
 struct FieldMap {
   std::string title;
   Axis value;                    ///< e.g. {"|B|", "T"}
   const Eigen::MatrixX2d* nodes = nullptr;      ///< #nodes by 2 [m]
-  const Eigen::MatrixX3i* triangles = nullptr;  ///< #triangles by 3
+  const Eigen::MatrixX3i* triangles = nullptr;  ///< #triangles by 3, counter-clockwise
   Eigen::VectorXd values;                       ///< #triangles
+  double clip_fraction = 1.0;                   ///< e.g. 0.995: the scale ends at the 99.5th percentile
+  MapOverlay overlay;                           ///< flux lines, outlines, labels, arrows, key
 };
 std::string field_map(const FieldMap& c);
 inline constexpr int kColourBins = 32;

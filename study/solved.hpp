@@ -49,7 +49,6 @@ struct Solved {
   post::StageTimes seconds;  ///< the strategy's own stages
   std::vector<post::FieldFrame> frames;
   post::CrossSection section;
-  std::shared_ptr<const mesh::Mesh> drawn;  ///< the mesh the section draws, when not the StudyInput's
   /// Files only this strategy writes (iron loss); returns their names.
   std::function<std::vector<std::string>(const std::filesystem::path&)> write_extra;
 };

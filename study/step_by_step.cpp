@@ -210,12 +210,10 @@ void add_fields(const StudyInput& in, const MotionSchedule& plan, const post::Mo
   const int shown = in.options.report_step;
   const double angle = r.steps[shown].rotor_angle;
   constexpr double deg = 180.0 / std::numbers::pi;
-  out.drawn = std::make_shared<const mesh::Mesh>(mesh::with_rotor_turned(in.m, post::drawn_rotor_angle(in.m, angle)));
-  // |B| does not depend on the sign the image of an anti-periodic sector carries.
-  out.section = {out.drawn.get(), post::flux_density_magnitude(in.m, kept.of(shown)),
-                 input::rotor_turns(in.c.study.kind)
-                     ? fmt::format("step {} (rotor at {:.4g}° mech.)", shown, angle * deg)
-                     : fmt::format("step {} (ωt = {:.4g}° el.)", shown, plan.electrical_angle[shown] * deg)};
+  out.section = post::cross_section({in.m, in.w, kept.of(shown), post::flux_density_magnitude(in.m, kept.of(shown)), angle,
+                                     input::rotor_turns(in.c.study.kind)
+                                         ? fmt::format("step {} (rotor at {:.4g}° mech.)", shown, angle * deg)
+                                         : fmt::format("step {} (ωt = {:.4g}° el.)", shown, plan.electrical_angle[shown] * deg)});
 }
 
 }  // namespace

@@ -69,9 +69,10 @@ Solved solve_by_superposition(const StudyInput& in) {
                           }});
   }
   const post::StepResult& shown = out.field->steps[in.options.report_step];
-  out.section = {&in.m, post::flux_density_magnitude(in.m, solver::superpose(*fields, shown.currents)),
-                 fmt::format("step {} (ωt = {:.4g}° el.)", in.options.report_step,
-                             shown.electrical_angle * 180 / std::numbers::pi)};
+  const Eigen::VectorXd a = solver::superpose(*fields, shown.currents);
+  out.section = post::cross_section({in.m, in.w, a, post::flux_density_magnitude(in.m, a), 0.0,
+                                     fmt::format("step {} (ωt = {:.4g}° el.)", in.options.report_step,
+                                                 shown.electrical_angle * 180 / std::numbers::pi)});
   return out;
 }
 

@@ -49,8 +49,11 @@ void add_fields(const StudyInput& in, Solved& out, const std::vector<post::Speed
                                                  const std::filesystem::path& path) { write(k, *drawing, info, path); }});
   }
   const int shown = in.options.report_step;
-  out.section = {&in.m, post::peak_flux_density(in.m, f.field(shown)),
-                 fmt::format("speed {} ({:.4g} rad/s), peak over a period{}", shown, rows[shown].rotor_speed, f.what)};
+  const Eigen::VectorXcd a = f.field(shown);
+  out.section = post::cross_section({in.m, in.w, a.real(), post::peak_flux_density(in.m, a), 0.0,
+                                     fmt::format("speed {} ({:.4g} rad/s), |B| peak over a period{}", shown,
+                                                 rows[shown].rotor_speed, f.what),
+                                     "Re(A_z), the field at ωt = 0"});
 }
 
 /// Skin depths per conducting region, with the permeability and conductivity each region was solved with.

@@ -28,6 +28,33 @@ using tf::testing::data_paths;
 
 namespace {
 
+using testing::Extent;
+using testing::Point;
+using testing::subpaths;
+
+Extent extent(const std::vector<std::vector<Point>>& paths) {
+  Extent e;
+  for (const auto& path : paths)
+    for (const auto& p : path) e.add(p);
+  return e;
+}
+
+/// Total area [px^2] of the closed subpaths ("M … Z") of every filled data path, by the shoelace
+/// formula: outer loops and holes turn opposite ways, so their signed areas add up to the area covered.
+double polygon_area(const std::string& s) {
+  double total = 0.0;
+  const std::regex path(R"re(<path class="data" fill="#[^>]*\bd="([^"]*)")re");
+  for (auto it = std::sregex_iterator(s.begin(), s.end(), path); it != std::sregex_iterator(); ++it) {
+    for (const auto& p : subpaths((*it)[1]))
+      for (std::size_t i = 0; i < p.size(); ++i) {
+        const Point& a = p[i];
+        const Point& b = p[(i + 1) % p.size()];
+        total += 0.5 * (a.x * b.y - b.x * a.y);
+      }
+  }
+  return std::abs(total);
+}
+
 std::size_t count(const std::string& s, const std::string& what) {
   std::size_t n = 0;
   for (auto pos = s.find(what); pos != std::string::npos; pos = s.find(what, pos + 1)) ++n;
@@ -104,21 +131,27 @@ TEST_CASE("colour bins cover min .. max and the field map draws every triangle o
   CHECK(svg::bin_colour(0, 32) != svg::bin_colour(31, 32));
 
   const mesh::Mesh m = testing::polar_mesh(0.0, {{0.01, 3, mesh::RegionKind::rotor_iron, "core"}}, 16);
-  svg::FieldMap map{"field", {"|B|", "T"}, &m.nodes, &m.triangles, Eigen::VectorXd(m.n_triangles())};
+  svg::FieldMap map;
+  map.title = "field", map.value = {"|B|", "T"}, map.nodes = &m.nodes, map.triangles = &m.triangles;
+  map.values.resize(m.n_triangles());
   for (int t = 0; t < m.n_triangles(); ++t) map.values(t) = 0.1 + 1.4 * t / (m.n_triangles() - 1.0);
   const std::string s = svg::field_map(map);
   const auto paths = data_paths(s);
   CHECK(paths.size() <= static_cast<std::size_t>(svg::kColourBins));
-  CHECK(count(s, "Z") == static_cast<std::size_t>(m.n_triangles()));
+  // Each bin's triangles are merged into polygons: the bins' polygons (even-odd, shoelace formula)
+  // cover the mesh's area exactly once, up to the 0.1 px the coordinates are rounded to.
+  double mesh_area = 0.0;
+  for (int t = 0; t < m.n_triangles(); ++t) mesh_area += mesh::triangle_area(m, t);
+  const double drawn_area = polygon_area(s), px_per_m = (extent(paths).x_hi - extent(paths).x_lo) / 0.02;
+  CHECK(drawn_area == doctest::Approx(mesh_area * px_per_m * px_per_m).epsilon(0.003).scale(0));
+  CHECK(count(s, "Z") < static_cast<std::size_t>(m.n_triangles()) / 2);  // merged, not one polygon per triangle
   // The lowest and the highest value both get drawn, in the first and the last bin's colour.
   CHECK(s.find("fill=\"" + svg::bin_colour(0, 32) + "\" stroke") != std::string::npos);
   CHECK(s.find("fill=\"" + svg::bin_colour(31, 32) + "\" stroke") != std::string::npos);
   CHECK(s.find("|B| [T]") != std::string::npos);
   // Equal scales: the disc of radius 10 mm is as wide as it is tall in pixels.
-  double x_lo = 1e9, x_hi = -1e9, y_lo = 1e9, y_hi = -1e9;
-  for (const auto& path : paths)
-    for (const auto& p : path) x_lo = std::min(x_lo, p.x), x_hi = std::max(x_hi, p.x), y_lo = std::min(y_lo, p.y), y_hi = std::max(y_hi, p.y);
-  CHECK(x_hi - x_lo == doctest::Approx(y_hi - y_lo).epsilon(0.01).scale(0));
+  const Extent e = extent(paths);
+  CHECK(e.x_hi - e.x_lo == doctest::Approx(e.y_hi - e.y_lo).epsilon(0.01).scale(0));
 }
 
 TEST_CASE("the locus of an ideal rotating phasor c = 0.8 e^{jωt} T is a circle of constant radius") {
@@ -139,7 +172,7 @@ TEST_CASE("the locus of an ideal rotating phasor c = 0.8 e^{jωt} T is a circle 
 TEST_CASE("empty data give a complete chart saying so, not a broken file") {
   for (const std::string& s : {svg::line_chart({"nothing", {"x", ""}, {"y", ""}, {}, {}}),
                                svg::stem_chart({"nothing", {"n", ""}, {"c", "T"}, {}, {}}),
-                               svg::locus_plot({"nothing", "T", {}}), svg::field_map({"nothing", {"|B|", "T"}, nullptr, nullptr, {}})}) {
+                               svg::locus_plot({"nothing", "T", {}}), svg::field_map(svg::FieldMap{})}) {
     CHECK(s.rfind("<svg", 0) == 0);
     CHECK(s.find("</svg>") != std::string::npos);
     CHECK(s.find("no data") != std::string::npos);
