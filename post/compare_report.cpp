@@ -15,6 +15,10 @@ namespace {
 constexpr double kDeg = 180.0 / std::numbers::pi;
 
 std::string num(double v) { return svg::format_number(v, 6); }
+/// Ratios and ripples against 1 (their fundamental), the axis deviation against the axis step, as
+/// the case report shows them: round-off prints as 0.
+std::string ratio(double v) { return svg::format_number_against(v, 1, 6); }
+std::string percent(double v) { return svg::format_number_against(100 * v, 100, 6); }
 
 /// ωt folded into (-180°, 180°] [rad].
 double folded(double angle) { return std::remainder(angle, 2 * std::numbers::pi); }
@@ -49,9 +53,10 @@ std::vector<Row> headline_rows(const std::vector<ComparedCase>& cases) {
     const RotationMetrics& m = c.metrics;
     const bool torque = c.torque.has_value();
     const std::vector<std::string> values = {c.title, c.study, c.solved_by, num(m.mean_fundamental),
-                                             num(100 * m.amplitude_ripple), num(100 * m.peak_ripple),
-                                             num(m.rotation_uniformity_deg), num(m.backward_forward_ratio),
-                                             num(locus_axis_ratio(m)), num(100 * m.mean_distortion),
+                                             percent(m.amplitude_ripple), percent(m.peak_ripple),
+                                             svg::format_number_against(m.rotation_uniformity_deg, m.expected_step_deg, 6),
+                                             ratio(m.backward_forward_ratio), ratio(locus_axis_ratio(m)),
+                                             percent(m.mean_distortion),
                                              num(c.winding_factor), torque ? num(c.torque->mean) : "–",
                                              torque && std::isfinite(c.torque->ripple) ? num(100 * c.torque->ripple) : "–"};
     for (std::size_t i = 0; i < rows.size(); ++i) rows[i].values.push_back(values[i]);
@@ -64,7 +69,8 @@ Table headline_table(const std::vector<ComparedCase>& cases) {
           "As in comparison.csv. Metrics of the fundamental phasor c_p of B_r on the mid-gap circle over the steps; "
           "ripples are (max − min)/mean; angles mechanical. The locus axis ratio is (F − B)/(F + B) of the "
           "fundamental's forward and backward waves: 1 for a circular locus. Torque over the stack length, "
-          "counter-clockwise positive, where the rotor turns (–: not this study's)."};
+          "counter-clockwise positive, where the rotor turns (–: not this study's). Values below 1e-9 of the largest "
+          "value they are shown with (round-off) are shown as 0."};
   for (const ComparedCase& c : cases) t.columns.push_back(c.name);
   t.columns.push_back("unit");
   std::vector<Cell> links = {"report of the case"};  // each case's folder is named after it

@@ -63,16 +63,15 @@ void SaturationWatch::add_step(const Eigen::VectorXd& b_magnitude, const std::st
   }
 }
 
-std::vector<std::string> SaturationWatch::warnings(const std::string& steps_checked) const {
+std::vector<std::string> SaturationWatch::warnings(const std::string& steps_checked, const std::string& remedy) const {
   std::vector<std::string> out;
   for (const RegionSaturation& r : worst_) {
     if (r.fraction_above <= limits_.min_fraction) continue;
     out.push_back(fmt::format(
         "{}: {:.3g} % of its area above {:.3g} T in linear iron (up to {:.3g} T at the {:.3g}th percentile, {}; {} "
-        "checked): steel saturates near {:.3g} T, so the results overstate the field there; give the iron a B-H "
-        "curve or enlarge the part",
+        "checked): steel saturates near {:.3g} T, so the results overstate the field there; {}",
         m_->regions[static_cast<std::size_t>(r.region)].name, 100 * r.fraction_above, limits_.threshold,
-        r.percentile_b, 100 * limits_.percentile, r.when, steps_checked, limits_.threshold));
+        r.percentile_b, 100 * limits_.percentile, r.when, steps_checked, limits_.threshold, remedy));
   }
   return out;
 }

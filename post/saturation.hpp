@@ -56,8 +56,10 @@ class SaturationWatch {
   /// No region to watch (every iron has a B-H curve): the steps need not be fed.
   bool idle() const { return worst_.empty(); }
   /// One warning per watched region above the limits, naming region, fraction, percentile and
-  /// step; `steps_checked` says which steps were looked at ("all 36 steps").
-  std::vector<std::string> warnings(const std::string& steps_checked) const;
+  /// step; `steps_checked` says which steps were looked at ("all 36 steps"), `remedy` what the
+  /// user can do about it.
+  std::vector<std::string> warnings(const std::string& steps_checked,
+                                    const std::string& remedy = "give the iron a B-H curve or enlarge the part") const;
 
  private:
   const mesh::Mesh* m_;

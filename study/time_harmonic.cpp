@@ -86,7 +86,9 @@ void warn_saturation(const StudyInput& in, const solver::RegionCoefficients& k, 
   const std::vector<double>& speeds = in.c.study.rotor_speeds;
   for (std::size_t i = 0; i < speeds.size(); ++i)
     watch.add_step(peak_b(static_cast<int>(i)), fmt::format("speed {} ({:.4g} rad/s)", i, speeds[i]));
-  for (auto& w : watch.warnings(fmt::format("every one of the {} speeds, {}", speeds.size(), what)))
+  // A time-harmonic study cannot take a B-H curve (its permeability must not change over a period).
+  for (auto& w : watch.warnings(fmt::format("every one of the {} speeds, {}", speeds.size(), what),
+                                "an eddy-current study takes linear iron only: enlarge the part or lower the current"))
     warnings.push_back(std::move(w));
 }
 
