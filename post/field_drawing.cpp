@@ -4,6 +4,7 @@
 #include <cmath>
 #include <map>
 #include <numbers>
+#include <utility>
 
 #include "post/motion_output.hpp"
 #include "post/tables.hpp"
@@ -59,14 +60,28 @@ void set_coil(DrawnRegion& d, const mesh::Region& r, const mesh::Winding* w) {
 
 }  // namespace
 
-Eigen::VectorXd FieldDrawing::drawn_field(const Eigen::VectorXd& model_values) const {
-  Eigen::VectorXd a = model_values;
+RotorDrawn rotor_drawn(const mesh::Mesh& model, double rotor_angle) {
+  const double sector = 2 * std::numbers::pi / model.symmetry.copies;
+  const double drawn_angle = drawn_rotor_angle(model, rotor_angle);
+  RotorDrawn r;
+  r.turns = static_cast<int>(std::lround((rotor_angle - drawn_angle) / sector));
+  r.rotor_sign = model.symmetry.sign_of_copy(((r.turns % 2) + 2) % 2);
+  r.model = drawn_angle == 0.0 ? model : mesh::with_rotor_turned(model, drawn_angle);
+  return r;
+}
+
+Eigen::VectorXd rotor_signed(const mesh::Mesh& model, const Eigen::VectorXd& values, int rotor_sign) {
+  Eigen::VectorXd a = values;
   if (rotor_sign < 0) {
     const std::vector<bool> rotor = mesh::rotor_side_nodes(model);
     for (int node = 0; node < model.n_nodes(); ++node)
       if (rotor[static_cast<std::size_t>(node)]) a(node) = -a(node);
   }
   return a;
+}
+
+Eigen::VectorXd FieldDrawing::drawn_field(const Eigen::VectorXd& model_values) const {
+  return rotor_signed(model, model_values, rotor_sign);
 }
 
 Eigen::VectorXd FieldDrawing::nodal(const Eigen::VectorXd& model_values) const {
@@ -77,13 +92,11 @@ FieldDrawing field_drawing(const mesh::Mesh& model, const mesh::Geometry& g, con
                            double rotor_angle) {
   FieldDrawing d;
   const int copies = model.symmetry.copies;
-  const double sector = 2 * std::numbers::pi / copies;
-  // Whole sectors the drawn rotor is turned back by: its poles and bars are those that many
-  // copies further on, and an anti-periodic image carries the sign (-1)^turns.
-  const double drawn_angle = drawn_rotor_angle(model, rotor_angle);
-  const int turns = static_cast<int>(std::lround((rotor_angle - drawn_angle) / sector));
-  d.rotor_sign = model.symmetry.sign_of_copy(((turns % 2) + 2) % 2);
-  d.model = drawn_angle == 0.0 ? model : mesh::with_rotor_turned(model, drawn_angle);
+  // The drawn rotor's poles and bars are those `turns` copies further on.
+  RotorDrawn drawn = rotor_drawn(model, rotor_angle);
+  const int turns = drawn.turns;
+  d.rotor_sign = drawn.rotor_sign;
+  d.model = std::move(drawn.model);
   d.whole = unfold(d.model);
 
   // The whole machine's regions in the order copy 0's, then each further copy's new ones.

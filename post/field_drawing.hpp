@@ -40,6 +40,19 @@ struct FieldDrawing {
   Eigen::VectorXd drawn_field(const Eigen::VectorXd& model_values) const;
 };
 
+/// The model with its rotor drawn where it stood at rotor_angle [rad]: a sector model's rotor piece
+/// turned back by `turns` whole sectors into the stator's sector, which shows the image of the rotor
+/// that many sectors on, whose field carries the sign (-1)^turns when anti-periodic.
+struct RotorDrawn {
+  mesh::Mesh model;
+  int turns = 0;
+  int rotor_sign = 1;
+};
+RotorDrawn rotor_drawn(const mesh::Mesh& model, double rotor_angle);
+
+/// A nodal field of the model (#model nodes) with its rotor side times rotor_sign.
+Eigen::VectorXd rotor_signed(const mesh::Mesh& model, const Eigen::VectorXd& values, int rotor_sign);
+
 /// The model drawn whole with its rotor at rotor_angle [rad] (a sector model: turned back by whole
 /// sectors into the stator's sector, then unfolded). g numbers the whole machine's slots and rotor
 /// poles or bars; w (may be null) gives the coil sides' phases and directions.
