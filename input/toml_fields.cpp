@@ -278,12 +278,20 @@ void Fields::check_unknown_keys() {
     if (std::find(keys_.begin(), keys_.end(), key.str()) == keys_.end()) unknown.emplace_back(key.str(), &node);
   std::stable_sort(unknown.begin(), unknown.end(),
                    [](const auto& a, const auto& b) { return line_of(*a.second) < line_of(*b.second); });
-  has_unknown_ = !unknown.empty();
+  for (const auto& [word, node] : unknown) {
+    const std::string guess = nearest(word, keys_, last_part(name_));
+    if (guess.empty()) unguessed_ = true;
+    else misspelt_.push_back(guess);
+  }
   for (const auto& [word, node] : unknown) {
     const InputError e = unknown_key(word, *node);
     if (!doc_->errors) throw e;
     doc_->errors->note(e);
   }
+}
+
+bool Fields::stands_for_unknown(std::string_view key) const {
+  return unguessed_ || std::find(misspelt_.begin(), misspelt_.end(), key) != misspelt_.end();
 }
 
 InputError Fields::unknown_key(const std::string& word, const toml::node& node) const {
@@ -308,7 +316,7 @@ Fields Fields::table(std::string_view key, std::vector<std::string> keys) const 
   const Fields stand_in_fields(*doc_, empty_table(), child_name(key), keys, true);
   if (absent_) return stand_in_fields;
   return recovered(stand_in_fields, [&] {
-    if (!node && has_unknown_ && doc_->errors) throw Unreported{};  // the misspelt table is blamed
+    if (!node && stands_for_unknown(key) && doc_->errors) throw Unreported{};  // the misspelt table is blamed
     if (!node)
       input::fail(*doc_, line(), "", fmt::format("missing table [{}]", child_name(key)),
                   fmt::format("a table with the keys {}", join(keys, ", ")));
@@ -325,7 +333,7 @@ std::optional<Fields> Fields::optional_table(std::string_view key, std::vector<s
 const toml::node& Fields::required(std::string_view key, std::string_view expected) const {
   check_declared(key);
   const toml::node* node = table_->get(key);
-  if (!node && has_unknown_ && doc_->errors) throw Unreported{};  // the misspelt key is blamed
+  if (!node && stands_for_unknown(key) && doc_->errors) throw Unreported{};  // the misspelt key is blamed
   if (!node)
     input::fail(*doc_, line(), "", fmt::format("{}missing key '{}'", table_prefix(name_), key), expected);
   return *node;

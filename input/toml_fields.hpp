@@ -42,7 +42,7 @@ class ErrorLog {
 };
 
 /// Thrown, only while a document collects its errors, for a problem that follows from one already
-/// noted (a key missed in a table that holds a misspelt one; a key read after the table's choice
+/// noted (a key missed in a table that holds a misspelling of it; a key read after the table's choice
 /// had to be stood in for). Whoever reads a part of the case stops there without a word.
 struct Unreported {};
 
@@ -193,7 +193,11 @@ class Fields {
   std::string name_;
   std::vector<std::string> keys_;
   bool absent_ = false;       ///< stands in for a table that is missing or not a table
-  bool has_unknown_ = false;  ///< holds a key not in keys_ (a misspelling of a key it misses)
+  /// The keys this table's unknown keys most likely stand for (misspelt), which are then not
+  /// blamed as missing too; with an unknown key too far from any to guess, no missing key is.
+  std::vector<std::string> misspelt_;
+  bool unguessed_ = false;
+  bool stands_for_unknown(std::string_view key) const;
   /// A choice of this table (which decides the keys it may hold) was wrong: the rest is not read.
   mutable bool quiet_ = false;
 };

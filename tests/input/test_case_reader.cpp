@@ -437,6 +437,28 @@ TEST_CASE("every problem of a case file in one pass, in line order, and nothing 
   CHECK_FALSE(contains(message, "missing"));
 }
 
+TEST_CASE("a misspelt key hides only the key it stands for: another missing key is still reported") {
+  std::string text = read_text(source_dir + "/cases/pump24_three_phase.toml");
+  const auto replace = [&](const std::string& from, const std::string& to) {
+    const std::size_t at = text.find(from);
+    REQUIRE(at != std::string::npos);
+    text.replace(at, from.size(), to);
+  };
+  replace("\nwidth = ", "\nwidht = ");                           // [stator.slot] width misspelt
+  replace("\ndepth = 0.016", "\n# depth removed: 0.016");         // and depth missing
+  std::string message;
+  try {
+    read_case_text("two.toml", text);
+  } catch (const InputError& e) {
+    message = e.what();
+  }
+  CAPTURE(message);
+  CHECK(contains(message, "[stator.slot] unknown key 'widht'; did you mean 'width'?"));
+  CHECK(contains(message, "[stator.slot] missing key 'depth'"));
+  CHECK_FALSE(contains(message, "missing key 'width'"));
+  CHECK(contains(message, "2 problems in two.toml"));
+}
+
 TEST_CASE("a file with more than 20 problems lists the first 20 and says how many there are") {
   std::string text = read_text(source_dir + "/cases/pump24_three_phase.toml");
   std::string extra;
