@@ -35,6 +35,16 @@ std::string error_of(const std::string& path) {
   return "";
 }
 
+/// The same for case text held in memory, named `path`.
+std::string error_of_text(const std::string& path, const std::string& text) {
+  try {
+    read_case_text(path, text);
+  } catch (const InputError& e) {
+    return e.what();
+  }
+  return "";
+}
+
 bool contains(const std::string& text, const std::string& part) { return text.find(part) != std::string::npos; }
 
 std::string read_text(const std::string& path) {
@@ -446,12 +456,7 @@ TEST_CASE("a misspelt key hides only the key it stands for: another missing key 
   };
   replace("\nwidth = ", "\nwidht = ");                           // [stator.slot] width misspelt
   replace("\ndepth = 0.016", "\n# depth removed: 0.016");         // and depth missing
-  std::string message;
-  try {
-    read_case_text("two.toml", text);
-  } catch (const InputError& e) {
-    message = e.what();
-  }
+  const std::string message = error_of_text("two.toml", text);
   CAPTURE(message);
   CHECK(contains(message, "[stator.slot] unknown key 'widht'; did you mean 'width'?"));
   CHECK(contains(message, "[stator.slot] missing key 'depth'"));
@@ -466,12 +471,7 @@ TEST_CASE("a file with more than 20 problems lists the first 20 and says how man
   const std::size_t at = text.find("[machine]\n");
   REQUIRE(at != std::string::npos);
   text.insert(at + std::string("[machine]\n").size(), extra);
-  std::string message;
-  try {
-    read_case_text("many.toml", text);
-  } catch (const InputError& e) {
-    message = e.what();
-  }
+  const std::string message = error_of_text("many.toml", text);
   CAPTURE(message);
   int listed = 0;
   for (std::size_t p = message.find("[machine] unknown key"); p != std::string::npos;
