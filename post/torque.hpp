@@ -1,7 +1,9 @@
 #pragma once
 // Magnetostatic torque on the rotor [N m] (per metre when stack_length = 1), counter-clockwise
 // positive seen from +z, by three routes: Arkkio's band average (the main value), the Maxwell
-// stress on the sliding circle (a cross-check) and virtual work on the co-energy.
+// stress on the sliding circle (a cross-check) and virtual work, either local (the derivative of
+// the energy of the gap layer under a virtual rotation, no extra solve) or as a difference of the
+// co-energies of two solved positions.
 //
 // Frames: the rotor is never moved in the mesh; a turned rotor only reconnects the sliding circle.
 // B in rotor-side triangles is then in the rotor's own frame, but the polar components (B_r, B_theta)
@@ -35,6 +37,20 @@ double arkkio_torque_static(const mesh::Mesh& m, const Eigen::VectorXd& a_nodes,
 /// Use it as a cross-check; tests/post/test_torque.cpp measures the difference.
 /// a_nodes: #nodes nodal A_z [Wb/m]; g from gap_operators(m, M, ...).
 double circle_torque(const GapOperators& g, const Eigen::VectorXd& a_nodes, double stack_length);
+
+/// Local virtual work (J. L. Coulomb, "A methodology for the determination of global
+/// electromechanical quantities from a finite element analysis and its application to the
+/// evaluation of magnetic forces, torques and stiffness", IEEE Trans. Magn. 19(6), 1983, from
+/// memory): T = dW'/dtheta at constant currents = -dPi/dtheta at the solution's nodal A held, Pi the
+/// energy functional (the solution makes Pi stationary, so the change of A does not enter). The
+/// virtual rotation turns every rotor-side node off the sliding circle by dtheta and holds the
+/// circle's nodes, so only the rotor-side gap triangles touching the circle deform; they are air
+/// without current, and T = -L sum over them of d/dtheta (nu0/2 |B|^2 area) (solver::p1_energy_rate).
+/// Exact for the discrete field, like the co-energy difference, but with no extra solve, and the
+/// same for saturated iron (which does not deform). Whole machine (a sector's layer times its copies).
+/// a_nodes: #nodes nodal A_z [Wb/m], rotor nodes in the rotor's frame. Throws std::logic_error when a
+/// triangle touching the circle from the rotor side is not gap air (the mesh builder always puts one).
+double local_virtual_work_torque(const mesh::Mesh& m, const Eigen::VectorXd& a_nodes, double stack_length);
 
 /// Virtual work: T = dW'/dtheta at constant currents, by the central difference
 ///   (W'(theta + angle_step) - W'(theta - angle_step)) / (2 angle_step),

@@ -1,5 +1,7 @@
 #include "solver/p1.hpp"
 
+#include <cmath>
+
 namespace tf::solver {
 
 Eigen::Matrix<double, 3, 2> p1_gradients(const TriangleXY& xy, double& twice_area) {
@@ -17,6 +19,15 @@ Eigen::Matrix3d p1_stiffness(const TriangleXY& xy, double nu) {
   double twice_area = 0.0;
   const auto g = p1_gradients(xy, twice_area);
   return (0.5 * twice_area * nu) * (g * g.transpose());
+}
+
+double p1_energy_rate(const TriangleXY& xy, const Eigen::Vector3d& a, const TriangleXY& v, double nu) {
+  double twice_area = 0.0;
+  const auto g = p1_gradients(xy, twice_area);
+  const Eigen::Vector2d grad = g.transpose() * a;
+  const Eigen::Matrix2d velocity_gradient = v.transpose() * g;  // (j, k): d v_j / d x_k
+  return nu * 0.5 * std::abs(twice_area) *
+         (0.5 * grad.squaredNorm() * velocity_gradient.trace() - grad.dot(velocity_gradient * grad));
 }
 
 Eigen::Matrix3d p1_mass(const TriangleXY& xy, double sigma) {

@@ -25,6 +25,13 @@ Eigen::Matrix3d p1_mass(const TriangleXY& xy, double sigma);
 /// sigma: conductivity [S/m]. Rows sum to zero (a constant does not change along theta).
 Eigen::Matrix3d p1_motion(const TriangleXY& xy, double sigma);
 
+/// Rate of change of the element energy (nu/2) |grad a|^2 area as its vertices move with velocities
+/// v (3 by 2, any unit per unit of the parameter), the nodal potentials a held: the local virtual
+/// work of J. L. Coulomb (IEEE Trans. Magn. 19(6), 1983, from memory). With G = d(v)/d(x, y), the
+/// velocity's gradient on the triangle, the gradient of a changes by -G^T grad a and the area by
+/// area tr G, so the rate is nu area (|grad a|^2 tr G / 2 - grad a^T G grad a); 0 for a rigid motion.
+double p1_energy_rate(const TriangleXY& xy, const Eigen::Vector3d& a, const TriangleXY& v, double nu);
+
 /// Flux density (B_x, B_y) = (da/dy, -da/dx) [T] of nodal potentials a [Wb/m] on one triangle.
 Eigen::Vector2d p1_flux_density(const TriangleXY& xy, const Eigen::Vector3d& a);
 

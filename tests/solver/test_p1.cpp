@@ -75,6 +75,35 @@ TEST_CASE("p1 stiffness is symmetric, has zero row sums, and ignores rotation an
   CHECK((solver::p1_stiffness(turned, 795774.7) - k).norm() < 1e-12 * k.norm());
 }
 
+TEST_CASE("p1 energy rate: the derivative of the element energy as the vertices move, nothing for a rigid motion") {
+  // Against the central difference of (1/2) a^T K(xy + t v) a, K = p1_stiffness: the definition
+  // that J. L. Coulomb's local virtual work (IEEE Trans. Magn. 19(6), 1983) differentiates.
+  const solver::TriangleXY xy = skew_triangle();
+  const Eigen::Vector3d a(0.0031, -0.0012, 0.0020);
+  const double nu = 795774.7;
+  auto energy = [&](const solver::TriangleXY& at) { return 0.5 * a.dot(solver::p1_stiffness(at, nu) * a); };
+  solver::TriangleXY v;
+  v << 0.3, -1.1, 0.0, 0.0, 0.8, 0.4;  // one vertex still, two moving: a deformation
+  const double h = 1e-7;
+  const double difference = (energy(xy + h * v) - energy(xy - h * v)) / (2 * h);
+  CHECK(solver::p1_energy_rate(xy, a, v, nu) == doctest::Approx(difference).epsilon(1e-6));
+  // The same with the vertices listed clockwise: the rate does not depend on the orientation.
+  solver::TriangleXY xy_cw = xy, v_cw = v;
+  xy_cw.row(1).swap(xy_cw.row(2));
+  v_cw.row(1).swap(v_cw.row(2));
+  const Eigen::Vector3d a_cw(a(0), a(2), a(1));
+  CHECK(solver::p1_energy_rate(xy_cw, a_cw, v_cw, nu) == doctest::Approx(difference).epsilon(1e-6));
+  // A rigid rotation about the origin, v_i = (-y_i, x_i), and a translation change no energy.
+  solver::TriangleXY spin, shift;
+  for (int i = 0; i < 3; ++i) {
+    spin.row(i) << -xy(i, 1), xy(i, 0);
+    shift.row(i) << 0.7, -0.2;
+  }
+  const double scale = energy(xy) / 0.01;  // the energy per unit of motion of a 1 cm triangle
+  CHECK(std::abs(solver::p1_energy_rate(xy, a, spin, nu)) < 1e-12 * scale);
+  CHECK(std::abs(solver::p1_energy_rate(xy, a, shift, nu)) < 1e-12 * scale);
+}
+
 TEST_CASE("p1 flux density of a linear potential is exact") {
   // a = 3 + 2x - 5y  ->  B = (da/dy, -da/dx) = (-5, -2).
   solver::TriangleXY xy;
