@@ -1,81 +1,94 @@
-// Benchmark (not a test): a nonlinear rotor-position study of the demo stator with a surface-magnet
-// rotor and saturating iron: Newton iterations per step, time per step, symbolic analyses per step
-// and their share in the solve time (the fill-reducing ordering is computed once; each new rotor
-// position redoes only the symbolic factorization), for the field alone and as the study solves it
-// (with the co-energies a pitch either side for the virtual-work torque).
+// Benchmark (not a test): saturated studies solved one step at a time, as `turnfield run` solves
+// them (the field, the torques, the linearised fields, the post-processing of each step), against
+// the cost of one CHOLMOD factorization of the same mesh. Per study it prints the unknowns, the
+// steps, the Newton iterations (mean and most), the factorizations and symbolic analyses per step,
+// the time per step and that time in factorizations' worth.
 //
-// Sample run:  build/bench/bench_motion [CASE] [POSITIONS]
-//              (default cases/pump24_magnets_synchronous.toml, 90 positions)
+// Sample run:  build/bench/bench_motion [CASE [STEPS]] ...
+//              (default: the synchronous magnet demo, 90 steps; the saturated phase-angle demo, 36
+//              steps; the cogging demo, 240 steps; all from cases/)
 
 #include <chrono>
+#include <sstream>
 #include <string>
+#include <vector>
 
 #include <fmt/format.h>
 
 #include "input/case_reader.hpp"
-#include "study/motion_plan.hpp"
-#include "study/mesh_plan.hpp"
 #include "solver/assemble.hpp"
 #include "solver/coefficients.hpp"
 #include "solver/dofs.hpp"
-#include "solver/motion.hpp"
 #include "solver/spd_solver.hpp"
+#include "study/mesh_plan.hpp"
+#include "study/solved.hpp"
 
 namespace {
 
 using Clock = std::chrono::steady_clock;
 double since(Clock::time_point t) { return std::chrono::duration<double>(Clock::now() - t).count(); }
 
-/// Solves every position of the plan, and with `virtual_work` the co-energy a pitch either side as
-/// the study does for the virtual-work torque; prints what it cost.
-void run_positions(const tf::input::Case& c, const tf::mesh::Mesh& m, const tf::mesh::Winding& w,
-                   const tf::study::MotionSchedule& plan, bool virtual_work) {
+struct Study {
+  std::string path;
+  int steps;
+};
+
+/// The fastest of three factorizations of the mesh's linear stiffness matrix [s].
+double one_factorization(const tf::input::Case& c, const tf::mesh::Mesh& m) {
   using namespace tf;
-  solver::MotionSolver solver(m, w, c.materials, solver::magnet_layout(c.geometry.rotor));
-  const auto t = Clock::now();
-  for (std::size_t k = 0; k < plan.shift.size(); ++k) {
-    solver.solve(plan.shift[k], plan.currents[k]);
-    if (!virtual_work) continue;
-    solver.coenergy(plan.shift[k] + 1, plan.currents[k]);
-    solver.coenergy(plan.shift[k] - 1, plan.currents[k]);
+  const solver::DofMap d = solver::number_dofs(m, 0);
+  const auto K = solver::assemble_stiffness(m, d, solver::region_coefficients(m, c.materials).nu);
+  solver::SpdSolver s;
+  s.analyse(K);
+  double best = 1e30;
+  for (int i = 0; i < 3; ++i) {
+    const auto t = Clock::now();
+    s.factorize(K);
+    best = std::min(best, since(t));
   }
+  return best;
+}
+
+void run(const Study& study) {
+  using namespace tf;
+  input::Case c = input::read_case(study.path);
+  c.study.n_steps = study.steps;
+  c.study.n_field_files = 0;
+  const study::MeshedCase mc = study::mesh_and_wind(c);
+  const double factorization = one_factorization(c, mc.mesh);
+  study::RunOptions options;
+  study::Progress progress;
+  const auto t = Clock::now();
+  const study::Solved s = study::solve_step_by_step({c, mc.mesh, mc.winding, options, progress});
   const double wall = since(t);
-  const solver::MotionStats& s = solver.stats();
-  fmt::print("{}: {} unknowns\n", virtual_work ? "field and virtual-work co-energies (as the study)" : "field only",
-             s.n_dofs);
-  fmt::print("  Newton iterations per position {:.2f}\n", static_cast<double>(s.n_iterations) / s.n_solves);
-  fmt::print("  time per position {:.4f} s, in all {:.2f} s\n", wall / s.n_solves, wall);
-  fmt::print("  symbolic analyses per position {:.2f} ({} in all, the first included)\n",
-             static_cast<double>(s.n_analyses) / s.n_solves, s.n_analyses);
-  fmt::print("  new numbering, pattern and symbolic analysis: {:.3f} s in all = {:.2f} % of the solve time\n",
-             s.analyse_seconds, 100 * s.analyse_seconds / wall);
+  const post::SolverSummary& x = s.solver;
+  const double n = study.steps;
+  fmt::print("{} ({} steps)\n", study.path, study.steps);
+  fmt::print("  unknowns {}, one factorization {:.4f} s\n", x.n_unknowns, factorization);
+  fmt::print("  Newton iterations per solve {:.2f} (most {}), solves {}\n", x.newton_iterations_per_solve,
+             x.newton_iterations_max, x.n_solves);
+  fmt::print("  factorizations per step {:.2f}, symbolic analyses per step {:.2f}\n", x.n_factorizations / n,
+             x.n_analyses / n);
+  fmt::print("  time per step {:.4f} s = {:.2f} factorizations' worth; the study's solve {:.2f} s\n", wall / n,
+             wall / n / factorization, wall);
 }
 
 }  // namespace
 
 int main(int argc, char** argv) {
-  using namespace tf;
-  const std::string path = argc > 1 ? argv[1] : "cases/pump24_magnets_synchronous.toml";
-  input::Case c = input::read_case(path);
-  c.study.n_steps = argc > 2 ? std::stoi(argv[2]) : 90;
-  auto t = Clock::now();
-  const auto [m, w] = study::mesh_and_wind(c);
-  const double mesh_seconds = since(t);
-  const study::MotionSchedule plan = study::plan_motion(c, m, w);
-  {  // One linear system of this mesh: the size of its factor and the cost of one factorization.
-    const solver::DofMap d = solver::number_dofs(m, 0);
-    const auto K = solver::assemble_stiffness(m, d, solver::region_coefficients(m, c.materials).nu);
-    solver::SpdSolver s;
-    auto t0 = Clock::now();
-    s.analyse(K);
-    const double analyse = since(t0);
-    t0 = Clock::now();
-    s.factorize(K);
-    fmt::print("one system: {} unknowns, {} nonzeros, factor {:.3g} nonzeros; analyse {:.3f} s, factorize {:.3f} s\n",
-               d.n_dofs, K.nonZeros(), s.factor_nonzeros(), analyse, since(t0));
+  std::vector<Study> studies;
+  for (int i = 1; i < argc; ++i) {
+    const bool has_steps = i + 1 < argc && std::isdigit(static_cast<unsigned char>(argv[i + 1][0]));
+    studies.push_back({argv[i], has_steps ? std::stoi(argv[i + 1]) : 0});
+    if (has_steps) ++i;
   }
-  fmt::print("{}: {} positions, mesh {:.2f} s\n", path, plan.shift.size(), mesh_seconds);
-  run_positions(c, m, w, plan, false);
-  run_positions(c, m, w, plan, true);
+  if (studies.empty())
+    studies = {{"cases/pump24_magnets_synchronous.toml", 90},
+               {"cases/pump24_three_phase_saturated.toml", 36},
+               {"cases/pump24_magnets_cogging.toml", 240}};
+  for (Study& s : studies) {
+    if (s.steps == 0) s.steps = tf::input::read_case(s.path).study.n_steps;
+    run(s);
+  }
   return 0;
 }

@@ -85,6 +85,8 @@ json solver_summary(const SolverSummary& s) {
   if (s.n_factorizations >= 0) j["factorizations"] = s.n_factorizations;
   if (s.n_solves >= 0) j["solves"] = s.n_solves;
   if (std::isfinite(s.newton_iterations_per_solve)) j["newton_iterations_per_solve"] = s.newton_iterations_per_solve;
+  if (s.newton_iterations_max >= 0) j["newton_iterations_max"] = s.newton_iterations_max;
+  if (s.n_analyses >= 0) j["symbolic_analyses"] = s.n_analyses;
   for (const auto& [part, seconds] : s.seconds) j[part + "_s"] = seconds;
   return j;
 }
@@ -124,8 +126,9 @@ void add_motion(json& j, const RunRecord& rec) {
                    {"circle", torque_json(r.circle)},
                    {"virtual_work", torque_json(r.virtual_work)},
                    {"method", "Arkkio: Maxwell stress averaged over the gap band (main value); circle: Maxwell "
-                              "stress on the mid-gap circle; virtual work: co-energy difference of the rotor turned "
-                              "one sliding-circle pitch either way, currents held"}};
+                              "stress on the mid-gap circle; virtual work: the derivative of the "
+                              "co-energy under a virtual rotation of the rotor, currents held, from the deformed gap layer "
+                              "(local virtual work)"}};
     j["cogging_period_deg"] = {{"expected", r.cogging_period_expected * kDeg},
                                {"from_torque", r.cogging_period_measured * kDeg}};
     j["load_angle_deg"] = rec.load_angle * kDeg;

@@ -39,6 +39,8 @@ struct SolverSummary {
   int n_factorizations = -1;  ///< -1 when not counted
   int n_solves = -1;          ///< -1 when not counted
   double newton_iterations_per_solve = std::numeric_limits<double>::quiet_NaN();  ///< NaN: linear
+  int newton_iterations_max = -1;  ///< the most one solve took; -1 when not counted
+  int n_analyses = -1;             ///< symbolic analyses (one per sparsity pattern); -1 when not counted
   StageTimes seconds;     ///< the solver's own parts (analyse, factorize, solve)
 };
 

@@ -117,6 +117,7 @@ PositionField MotionSolver::solve(int shift, const std::vector<double>& currents
   s.stats.solve_seconds += clock.seconds();
   ++s.stats.n_solves;
   s.stats.n_iterations += out.newton.iterations;
+  s.stats.max_iterations = std::max(s.stats.max_iterations, out.newton.iterations);
   if (!out.newton.converged) {
     std::ostringstream msg;
     msg << "Newton iterations did not converge in " << out.newton.iterations << " iterations (residual "
@@ -137,6 +138,10 @@ Eigen::MatrixXd MotionSolver::incremental_unit_fields() {
   return to_nodes(impl_->dofs, impl_->solver.solve_incremental(impl_->unit_loads_in_dofs()));
 }
 
-const MotionStats& MotionSolver::stats() const { return impl_->stats; }
+MotionStats MotionSolver::stats() const {
+  MotionStats s = impl_->stats;
+  s.n_factorizations = impl_->solver.factorizations();
+  return s;
+}
 
 }  // namespace tf::solver

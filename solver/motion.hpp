@@ -37,6 +37,8 @@ struct MotionStats {
   int n_dofs = 0;
   int n_solves = 0;
   int n_iterations = 0;   ///< Newton iterations summed over the solves
+  int max_iterations = 0; ///< the most Newton iterations one solve took
+  int n_factorizations = 0;  ///< numerical factorizations of every kind (the first included)
   int n_analyses = 0;     ///< symbolic analyses (the first included); a position seen lately needs none
   /// Set-up with the first analysis, and at every new rotor position the new numbering, the new
   /// sparsity pattern and its symbolic analysis (all of what a turn costs before factorizing).
@@ -70,7 +72,7 @@ class MotionSolver {
   Eigen::MatrixXd frozen_unit_fields();
   Eigen::MatrixXd incremental_unit_fields();
 
-  const MotionStats& stats() const;
+  MotionStats stats() const;
 
  private:
   struct Impl;

@@ -63,6 +63,8 @@ class NonlinearSolver {
 
   /// Symbolic analyses done so far (one per numbering set).
   int analyses() const { return n_analyses_; }
+  /// Numerical factorizations done so far (Newton steps, predictions, linearised solves).
+  int factorizations() const { return cholesky_.factorizations(); }
 
   /// Solves K(a) a = f. a: in, the start (warm start from a previous step); out, the last iterate.
   /// f = 0 gives a = 0 at once. A run that does not converge returns converged = false and

@@ -127,6 +127,7 @@ void SpdSolver::factorize(const Eigen::SparseMatrix<double>& K) {
   Eigen::SparseMatrix<double> copy;
   cholmod_sparse a = view_lower(compressed(K, copy));
   cholmod_factorize(&a, impl_->factor, &impl_->common);
+  ++n_factorizations_;
   // On failure, minor is the column where the factorization stopped; on success it equals n.
   if (impl_->common.status == CHOLMOD_NOT_POSDEF || impl_->factor->minor != impl_->factor->n)
     throw SolveError(

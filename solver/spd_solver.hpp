@@ -32,10 +32,13 @@ class SpdSolver {
   double factor_nonzeros() const;
   /// Solves K x = f for every column of f (n by #columns).
   Eigen::MatrixXd solve(const Eigen::MatrixXd& f) const;
+  /// Numerical factorizations done so far (what a study's cost is counted in).
+  int factorizations() const { return n_factorizations_; }
 
  private:
   struct Impl;
   std::unique_ptr<Impl> impl_;
+  int n_factorizations_ = 0;
 };
 
 }  // namespace tf::solver

@@ -39,7 +39,7 @@ Solved solve_by_superposition(const StudyInput& in) {
   const solver::SolveStats& stats = fields->stats;
   out.solver = {"CHOLMOD supernodal Cholesky; the m unit phase fields solved as one block, steps superposed",
                 stats.n_dofs, static_cast<long>(stats.n_nonzeros), 1, -1,
-                std::numeric_limits<double>::quiet_NaN(),
+                std::numeric_limits<double>::quiet_NaN(), -1, 1,
                 {{"assemble", stats.assemble_seconds}, {"analyse", stats.analyse_seconds},
                  {"factorize", stats.factorize_seconds}, {"solve", stats.solve_seconds}}};
 

@@ -94,7 +94,7 @@ void warn_saturation(const StudyInput& in, const solver::RegionCoefficients& k, 
 
 post::SolverSummary umfpack_summary(const solver::TimeHarmonicStats& stats) {
   return {"UMFPACK complex LU; one symbolic analysis, one factorization per speed", stats.n_dofs, -1, -1, -1,
-          std::numeric_limits<double>::quiet_NaN(),
+          std::numeric_limits<double>::quiet_NaN(), -1, 1,
           {{"analyse", stats.analyse_seconds}, {"factorize", stats.factorize_seconds}, {"solve", stats.solve_seconds}}};
 }
 
