@@ -185,8 +185,8 @@ std::string headline_note(const RunRecord& r) {
             "(max − min)/mean; angles mechanical. ";
   if (r.motion && r.rotor_turns)
     note += "Torque over the stack length, counter-clockwise positive. Arkkio: Maxwell stress averaged over the gap "
-            "band (main value); circle: on the mid-gap circle; virtual work: co-energy difference of neighbouring "
-            "rotor positions. ";
+            "band (main value); circle: on the mid-gap circle; virtual work: derivative of the co-energy under a "
+            "virtual rotation of the rotor (local virtual work, no extra solve). ";
   if (r.eddy) note += "Time averages over a period of the peak phasors; torque over the stack length, counter-clockwise positive. ";
   if (r.motion) note += "Each step solved on its own with Newton's method (nonlinear iron where B-H curves are given). ";
   note += "Values below 1e-9 of the largest value they are shown with (round-off) are shown as 0.";
@@ -200,7 +200,11 @@ Page study_page(const ReportContext& x, const RunRecord& r) {
   page.warnings = r.warnings;
   std::vector<KeyValue> rows;
   if (r.motion && r.rotor_turns) add_torque(page, rows, *r.motion);
-  if (r.motion) rows.push_back({"Newton iterations per solve", num(r.motion->mean_newton_iterations, 3), ""});
+  if (r.motion) {
+    rows.push_back({"Newton iterations per solve", num(r.motion->mean_newton_iterations, 3), ""});
+    rows.push_back({"Steps solved", fmt::format("{} of {}", r.motion->n_solved, r.motion->steps.size()),
+                    "the others mirror a solved step (currents reversed; odd B-H curves)"});
+  }
   if (r.field && r.field_rotates) {
     for (auto& row : field_rows(r.field->metrics, x.winding_factor)) rows.push_back(std::move(row));
   } else if (r.field) {

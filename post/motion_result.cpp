@@ -80,6 +80,7 @@ void summarise_torque(MotionResult& r, int n_slots, int n_poles, double span, bo
   r.cogging_period_expected = 2 * std::numbers::pi / std::lcm(n_slots, n_poles);
   r.cogging_period_measured = dominant_period(arkkio, span);
   r.mean_newton_iterations = static_cast<double>(n_iterations) / std::max(1, n_solves);
+  r.n_solved = n_solves;
 }
 
 }  // namespace tf::post

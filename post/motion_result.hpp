@@ -16,7 +16,7 @@ struct PositionStep {
   double rotor_angle = 0.0;       ///< mechanical, counter-clockwise from the rotor's starting position
   double torque_arkkio = 0.0;     ///< the main value: Maxwell stress averaged over the gap band
   double torque_circle = 0.0;     ///< cross-check: Maxwell stress on the mid-gap circle
-  double torque_virtual_work = 0.0;  ///< cross-check: co-energy difference of the neighbouring positions (NaN if off)
+  double torque_virtual_work = 0.0;  ///< cross-check: local virtual work (post/torque.hpp; NaN if off)
   std::vector<double> flux_linkage;  ///< per phase
   double flux_d = 0.0, flux_q = 0.0;  ///< dq-axis flux linkages (amplitude-invariant), d on the rotor's d axis
   std::vector<double> back_emf;       ///< per phase [V] at the study's speed: -dψ/dt
@@ -44,7 +44,8 @@ struct MotionResult {
   double speed = 0.0;                ///< mechanical [rad/s] of the back-EMF
   double cogging_period_expected = 0.0;  ///< 2π / LCM(Q, 2p) [rad] (common practice)
   double cogging_period_measured = 0.0;  ///< [rad]: the longest period the torque's spectrum shows; 0 if flat
-  double mean_newton_iterations = 0.0;
+  double mean_newton_iterations = 0.0;  ///< per solved step
+  int n_solved = 0;  ///< steps solved by Newton; the others mirror one of them (solver/field_symmetry.hpp)
   std::vector<std::pair<std::string, double>> iron_loss;  ///< per iron region [W]; empty if not estimated
 };
 

@@ -50,6 +50,9 @@ void print_steps(std::ostream& out, const MotionResult& r) {
   for (const auto& s : r.steps) lo = std::min(lo, s.flux_linkage[0]), hi = std::max(hi, s.flux_linkage[0]);
   out << fmt::format("  flux linkage A {:.5g} .. {:.5g} Wb, Newton iterations per solve {:.2f}\n", lo, hi,
                      r.mean_newton_iterations);
+  if (r.n_solved < static_cast<int>(r.steps.size()))
+    out << fmt::format("  {} of {} steps solved; each of the others mirrors one of them by the field's half-period symmetry\n",
+                       r.n_solved, r.steps.size());
   if (!r.iron_loss.empty()) {
     double total = 0.0;
     for (const auto& [region, watts] : r.iron_loss) total += watts;

@@ -2,9 +2,13 @@
 
 #include <cmath>
 #include <complex>
+#include <functional>
+#include <map>
 #include <numbers>
 #include <numeric>
+#include <string_view>
 
+#include "solver/dofs.hpp"
 #include "solver/motion.hpp"
 #include "solver/supply.hpp"
 
@@ -86,6 +90,35 @@ MotionSchedule plan_motion(const input::Case& c, const mesh::Mesh& m, const mesh
   if (c.study.kind == input::StudyKind::synchronous)
     s.load_angle = wrap(turn * (axis0 - p * (s.rotor_angle[0] + s.rotor_d_axis)));
   return s;
+}
+
+std::vector<StepOrigin> step_origins(const MotionSchedule& s, const mesh::Mesh& m, bool magnets) {
+  const std::vector<bool> rotor_side = mesh::rotor_side_nodes(m);
+  // One numbering per rotor shift, and a hash of its unknowns to pass over pairs that cannot agree.
+  std::map<int, std::pair<solver::DofMap, std::size_t>> numbering;
+  for (int shift : s.shift)
+    if (!numbering.count(shift)) {
+      solver::DofMap d = solver::number_dofs(m, shift);
+      const std::string_view bytes(reinterpret_cast<const char*>(d.dof_of_node.data()), d.dof_of_node.size() * sizeof(int));
+      const std::size_t hash = std::hash<std::string_view>{}(bytes);
+      numbering.emplace(shift, std::make_pair(std::move(d), hash));
+    }
+  std::vector<StepOrigin> origin(s.shift.size());
+  std::vector<int> solved;
+  for (std::size_t k = 0; k < s.shift.size(); ++k) {
+    const auto& [dofs_k, hash_k] = numbering.at(s.shift[k]);
+    for (int j : solved) {
+      const auto& [dofs_j, hash_j] = numbering.at(s.shift[static_cast<std::size_t>(j)]);
+      if (hash_j != hash_k) continue;
+      const auto signs = solver::field_symmetry(rotor_side, magnets, {dofs_j, s.currents[static_cast<std::size_t>(j)]},
+                                                {dofs_k, s.currents[k]});
+      if (!signs) continue;
+      origin[k] = {j, *signs};
+      break;
+    }
+    if (origin[k].source < 0) solved.push_back(static_cast<int>(k));
+  }
+  return origin;
 }
 
 }  // namespace tf::study

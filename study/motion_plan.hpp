@@ -6,6 +6,7 @@
 #include "input/case.hpp"
 #include "mesh/mesh.hpp"
 #include "mesh/winding.hpp"
+#include "solver/field_symmetry.hpp"
 
 namespace tf::study {
 
@@ -25,6 +26,17 @@ int sliding_multiple(const input::Case& c);
 
 /// The schedule of the case's motion study on its mesh (whose sliding circle is fine enough).
 MotionSchedule plan_motion(const input::Case& c, const mesh::Mesh& m, const mesh::Winding& w);
+
+/// Where a step's field comes from: its own solve (source -1), or the field of the earlier step
+/// `source` with each side's sign (solver/field_symmetry.hpp).
+struct StepOrigin {
+  int source = -1;
+  solver::SideSigns signs;
+};
+
+/// Per step of the schedule: solved, or derived from the first solved step it mirrors. magnets:
+/// whether the rotor carries magnets (they do not reverse with the currents).
+std::vector<StepOrigin> step_origins(const MotionSchedule& s, const mesh::Mesh& m, bool magnets);
 
 /// Electrical angle [rad] of the stator field's axis for the phase currents [A]: the argument of
 /// the space vector sum_k i_k e^{j theta_k}, theta_k the electrical axis of phase k.

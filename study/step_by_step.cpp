@@ -33,6 +33,16 @@ struct Context {
   const mesh::Mesh& m;
   const mesh::Winding& w;
   const MotionSchedule& plan;
+  const std::vector<StepOrigin>& origin;  ///< per step: solved, or mirrored from an earlier step
+  const std::vector<bool>& rotor_side;    ///< mesh::rotor_side_nodes
+};
+
+/// A step's field and what needs the solver's state at it (the linearised fields' inductances).
+struct StepField {
+  Eigen::VectorXd a;  ///< nodal A_z [Wb/m], rotor nodes in the rotor's frame
+  int iterations = 0;  ///< Newton iterations; 0 for a field derived from another step's
+  double relative_residual = 0.0;
+  Eigen::MatrixXd inductance_frozen, inductance_incremental;  ///< [H]
 };
 
 /// The study's speed [rad/s]: as given, or synchronous with the supply.
@@ -47,14 +57,6 @@ std::vector<double> phase_flux(const Context& x, const Eigen::VectorXd& a) {
   return {psi.data(), psi.data() + psi.size()};
 }
 
-/// Torque by co-energy [N m]: the rotor turned one pitch either way with the currents held.
-double virtual_work(const Context& x, solver::MotionSolver& s, int k, const solver::PositionField& f) {
-  const auto& i = x.plan.currents[k];
-  const double plus = s.coenergy(f.shift + 1, i);
-  const double minus = s.coenergy(f.shift - 1, i);
-  return x.c.stack_length * post::virtual_work_torque(minus, plus, solver::sliding_pitch(x.m));
-}
-
 /// The field of step k; a failure names the step, the rotor angle and the instant.
 solver::PositionField solve_named(const Context& x, solver::MotionSolver& s, int k) {
   try {
@@ -66,29 +68,48 @@ solver::PositionField solve_named(const Context& x, solver::MotionSolver& s, int
   }
 }
 
-/// Solves step k (warm-started from the previous field) and everything that needs its solver state.
-post::PositionStep solve_step(const Context& x, solver::MotionSolver& s, int k, Eigen::VectorXd& field,
-                              post::StepResult& gap) {
+/// Solves step k (warm-started from the previous field), with the inductances of its linearised fields.
+StepField solve_field(const Context& x, solver::MotionSolver& s, int k) {
+  const solver::PositionField f = solve_named(x, s, k);
+  StepField out{f.a, f.newton.iterations, f.relative_residual, {}, {}};
+  // Incremental first: it reuses the factor of the last Newton step; the frozen one factorizes anew.
+  out.inductance_incremental = solver::flux_linkage(x.m, x.w, s.incremental_unit_fields(), x.c.stack_length);
+  out.inductance_frozen = solver::flux_linkage(x.m, x.w, s.frozen_unit_fields(), x.c.stack_length);
+  return out;
+}
+
+/// The field of a step that mirrors `from`: each side's potentials times its sign. The linearised
+/// fields' inductances are those of `from`: the permeabilities depend on |B| only, and the stator
+/// sign enters the unit field and its flux linkage alike.
+StepField mirrored_field(const Context& x, const StepField& from, solver::SideSigns signs) {
+  StepField out = from;
+  out.a = solver::with_side_signs(x.rotor_side, from.a, signs);
+  out.iterations = 0;
+  return out;
+}
+
+/// The quantities of step k from its field.
+post::PositionStep step_quantities(const Context& x, int k, const StepField& f, post::StepResult& gap) {
   const int p = x.c.winding.pole_pairs();
   const bool turns = input::rotor_turns(x.c.study.kind);
-  const solver::PositionField f = solve_named(x, s, k);
-  field = f.a;
   // B_θ on the circle reads the rotor-side triangles, which face other chords once the rotor turned.
-  const post::GapOperators ops = post::gap_operators(x.m, x.c.study.n_gap_points, p * x.c.study.max_harmonic, f.shift);
+  const post::GapOperators ops =
+      post::gap_operators(x.m, x.c.study.n_gap_points, p * x.c.study.max_harmonic, x.plan.shift[k]);
   gap = post::sample_gap_field(ops, f.a, p, p * x.c.study.max_harmonic);
   gap.electrical_angle = x.plan.electrical_angle[k];
   gap.currents = x.plan.currents[k];
   post::PositionStep step;
   step.rotor_angle = x.plan.rotor_angle[k];
-  step.newton_iterations = f.newton.iterations;
+  step.newton_iterations = f.iterations;
   step.newton_residual = f.relative_residual;
   step.torque_arkkio = post::arkkio_torque_static(x.m, f.a, x.c.stack_length);
   step.torque_circle = post::circle_torque(ops, f.a, x.c.stack_length);
   step.flux_linkage = phase_flux(x, f.a);
-  step.inductance_frozen = solver::flux_linkage(x.m, x.w, s.frozen_unit_fields(), x.c.stack_length);
-  step.inductance_incremental = solver::flux_linkage(x.m, x.w, s.incremental_unit_fields(), x.c.stack_length);
-  step.torque_virtual_work = turns && x.c.study.virtual_work ? virtual_work(x, s, k, f)
-                                                             : std::numeric_limits<double>::quiet_NaN();
+  step.inductance_incremental = f.inductance_incremental;
+  step.inductance_frozen = f.inductance_frozen;
+  step.torque_virtual_work = turns && x.c.study.virtual_work
+                                 ? post::local_virtual_work_torque(x.m, f.a, x.c.stack_length)
+                                 : std::numeric_limits<double>::quiet_NaN();
   return step;
 }
 
@@ -114,6 +135,11 @@ struct StepObservers {
   post::SaturationWatch* saturation = nullptr;
 };
 
+/// Whether a later step's field is derived from step k's.
+bool is_source(const std::vector<StepOrigin>& origin, int k) {
+  return std::any_of(origin.begin(), origin.end(), [k](const StepOrigin& o) { return o.source == k; });
+}
+
 /// The step's name in a warning: its number and where the rotor or the currents stood.
 std::string step_name(const Context& x, int k) {
   constexpr double deg = 180.0 / std::numbers::pi;
@@ -129,13 +155,19 @@ post::MotionResult solve_steps(const Context& x, solver::MotionSolver& s, const 
   for (int j = 0; j < x.c.study.n_gap_points; ++j)
     r.gap.sample_angles.push_back(2 * std::numbers::pi * j / x.c.study.n_gap_points);
   const int n = static_cast<int>(x.plan.shift.size());
-  Eigen::VectorXd field;
+  // The fields of solved steps that later steps mirror, by step.
+  std::vector<StepField> sources(static_cast<std::size_t>(n));
   for (int k = 0; k < n; ++k) {
     progress.count(input::rotor_turns(x.c.study.kind) ? "solving rotor positions" : "solving steps", k, n);
+    const StepOrigin& origin = x.origin[static_cast<std::size_t>(k)];
+    StepField f = origin.source < 0 ? solve_field(x, s, k)
+                                    : mirrored_field(x, sources[static_cast<std::size_t>(origin.source)], origin.signs);
     post::StepResult gap;
-    r.steps.push_back(solve_step(x, s, k, field, gap));
+    r.steps.push_back(step_quantities(x, k, f, gap));
     r.gap.steps.push_back(std::move(gap));
+    const Eigen::VectorXd& field = f.a;
     if (std::find(kept.begin(), kept.end(), k) != kept.end()) kept_fields.push_back(field);
+    if (origin.source < 0 && is_source(x.origin, k)) sources[static_cast<std::size_t>(k)] = f;
     if (!observe.history && !observe.saturation) continue;
     const Eigen::MatrixX2d b = post::flux_density(x.m, field);
     if (observe.history) {
@@ -223,7 +255,9 @@ Solved solve_step_by_step(const StudyInput& in) {
   Solved out;
   solver::Stopwatch clock;
   const MotionSchedule plan = plan_motion(c, in.m, in.w);
-  const Context x{c, in.m, in.w, plan};
+  const std::vector<StepOrigin> origin = step_origins(plan, in.m, solver::magnet_layout(c.geometry.rotor).n_poles > 0);
+  const std::vector<bool> rotor_side = mesh::rotor_side_nodes(in.m);
+  const Context x{c, in.m, in.w, plan, origin, rotor_side};
   solver::MotionSolver solver(in.m, in.w, c.materials, solver::magnet_layout(c.geometry.rotor));
   const std::vector<int> files = field_steps(in, c.study.n_steps);
   const std::vector<int> kept = kept_steps(files, in.options.report_step);
@@ -253,8 +287,10 @@ Solved solve_step_by_step(const StudyInput& in) {
     if (std::string w = sampling_warning(r, plan); !w.empty()) out.warnings.push_back(std::move(w));
   for (auto& w : saturation.warnings(fmt::format("all {} steps", r.steps.size()))) out.warnings.push_back(std::move(w));
   out.solver = {"CHOLMOD supernodal Cholesky per step; Newton-Raphson with the consistent Jacobian where B-H curves "
-                "are given",
-                stats.n_dofs, -1, -1, stats.n_solves, r.mean_newton_iterations,
+                "are given; a step whose currents are another's reversed, with the rotor at rest or a pole pitch "
+                "on in an anti-periodic sector, takes that step's field with the signs the odd B-H curves give",
+                stats.n_dofs, -1, stats.n_factorizations, stats.n_solves, r.mean_newton_iterations,
+                stats.max_iterations, stats.n_analyses,
                 {{"analyse", stats.analyse_seconds}, {"solve", stats.solve_seconds}}};
   out.field = r.gap;
   out.motion = std::move(r);

@@ -15,6 +15,7 @@
 #include "solver/assemble.hpp"
 #include "solver/bh_curve.hpp"
 #include "solver/dofs.hpp"
+#include "solver/field_symmetry.hpp"
 #include "solver/magnets.hpp"
 #include "solver/motion.hpp"
 #include "solver/nonlinear.hpp"
@@ -139,6 +140,13 @@ TEST_CASE("sector model in the rotor-position solver: torque, fundamental, flux 
     // And it is the whole machine's torque, as Arkkio's is: the two routes agree (a common-practice
     // cross-check of the two methods, cf. post/torque.hpp) only if both scale the sector alike.
     CHECK(t_sector == doctest::Approx(post::arkkio_torque_static(s.sector, p.a, 1.0)).epsilon(1e-2).scale(0));
+    // The local virtual work (J. L. Coulomb 1983) differentiates the same co-energy without the two
+    // extra solves: it meets the difference of the solved neighbours, in saturated iron too.
+    const double local_full = post::local_virtual_work_torque(s.full, f.a, 1.0);
+    const double local_sector = post::local_virtual_work_torque(s.sector, p.a, 1.0);
+    MESSAGE("local virtual work " << local_full << " / " << local_sector << " N m/m");
+    CHECK(local_full == doctest::Approx(t_full).epsilon(2e-3).scale(0));  // measured: within 5.4e-4
+    CHECK(local_sector == doctest::Approx(local_full).epsilon(1e-3).scale(0));
   }
   // The linearised unit fields (inductances) fold the same way.
   // The linearised fields belong to the last solve (virtual work's neighbours are not solves).
@@ -148,4 +156,53 @@ TEST_CASE("sector model in the rotor-position solver: torque, fundamental, flux 
   const Eigen::MatrixXd psi_sector = solver::flux_linkage(s.sector, s.w, sector.frozen_unit_fields(), 1.0);
   MESSAGE("frozen-permeability inductances [H/m]: full\n" << psi_full << "\nsector\n" << psi_sector);
   CHECK((psi_sector - psi_full).cwiseAbs().maxCoeff() < 1e-4 * psi_full.cwiseAbs().maxCoeff());
+}
+
+TEST_CASE("steps that mirror another: the field derived by the side signs is the field Newton finds there") {
+  // B-H curves are odd, so the field with one side's sources reversed is that side's field reversed
+  // (solver/field_symmetry.hpp). Checked against a solve of each mirrored step, in saturated iron.
+  const Models& s = models();
+  const solver::BhCurve& c = iron_curve();
+  const solver::BhTable table{c.table_h(), c.table_b(), "arctan law of docs/references.md §5, sampled", 1.0};
+  const solver::Materials mat{.stator_iron_bh = table, .rotor_iron_bh = table};
+  const int n = static_cast<int>(s.sector.sliding.stator_nodes.size());
+  const std::vector<double> i = testing::three_phase_currents(300.0, 0.3);
+  const std::vector<double> minus_i = testing::three_phase_currents(-300.0, 0.3);
+  const std::vector<bool> rotor_side = mesh::rotor_side_nodes(s.sector);
+  auto symmetry = [&](const mesh::Mesh& m, bool magnets, int shift_a, const std::vector<double>& ia, int shift_b,
+                      const std::vector<double>& ib) {
+    const solver::DofMap a = solver::number_dofs(m, shift_a), b = solver::number_dofs(m, shift_b);
+    return solver::field_symmetry(mesh::rotor_side_nodes(m), magnets, {a, ia}, {b, ib});
+  };
+  auto check_mirror = [&](const solver::MagnetLayout& layout, int shift_b, solver::SideSigns expected) {
+    solver::MotionSolver solver(s.sector, s.w, mat, layout);
+    const Eigen::VectorXd from = solver.solve(5, i).a;
+    const Eigen::VectorXd to = solver.solve(shift_b, minus_i, false).a;
+    const auto signs = symmetry(s.sector, layout.n_poles > 0, 5, i, shift_b, minus_i);
+    REQUIRE(signs.has_value());
+    CHECK(signs->stator == expected.stator);
+    CHECK(signs->rotor == expected.rotor);
+    const double error = (solver::with_side_signs(rotor_side, from, *signs) - to).norm() / to.norm();
+    MESSAGE("mirrored against solved: relative difference " << error);
+    // Both Newton runs start from A = 0, so their iterates mirror each other to the last bit (measured:
+    // 0); a wrong sign on either side would be off by the field itself.
+    CHECK(error < 1e-9);
+  };
+  SUBCASE("magnets, a sector (a pole pitch) on, currents reversed: the stator's field reversed, the rotor's kept") {
+    check_mirror(solver::magnet_layout(s.g.rotor), 5 + n, {-1.0, 1.0});
+  }
+  SUBCASE("no magnet source, at rest, currents reversed: the whole field reversed") {
+    check_mirror(solver::MagnetLayout{}, 5, {-1.0, -1.0});
+  }
+  SUBCASE("no mirror where the physics gives none") {
+    // Magnets do not reverse: at rest with the currents reversed is another field.
+    CHECK_FALSE(symmetry(s.sector, true, 5, i, 5, minus_i).has_value());
+    // Half a sector on, the ties across the circle match nothing of the first numbering.
+    CHECK_FALSE(symmetry(s.sector, true, 5, i, 5 + n / 2, minus_i).has_value());
+    // The whole mesh turned by a pole pitch: its nodes are not the first position's images.
+    const int n_full = static_cast<int>(s.full.sliding.stator_nodes.size());
+    CHECK_FALSE(symmetry(s.full, true, 5, i, 5 + n_full / 4, minus_i).has_value());
+    // Currents that are neither the same nor reversed.
+    CHECK_FALSE(symmetry(s.sector, true, 5, i, 5 + n, testing::three_phase_currents(300.0, 0.4)).has_value());
+  }
 }
