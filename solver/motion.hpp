@@ -57,7 +57,8 @@ class MotionSolver {
   MotionSolver& operator=(const MotionSolver&) = delete;
 
   /// The field at rotor shift `shift` for the phase currents [A]. Newton starts from the last
-  /// solution's permeabilities (warm_start, after the first solve) or from A = 0.
+  /// solution's nodal potentials in the new numbering (warm_start, after the first solve; the rotor's
+  /// part stays in the rotor's frame, so it turns with the rotor) or from A = 0.
   /// Throws SolveError when Newton does not converge.
   PositionField solve(int shift, const std::vector<double>& currents, bool warm_start = true);
 
