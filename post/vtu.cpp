@@ -107,8 +107,10 @@ void write_grid(const std::filesystem::path& path, vtkUnstructuredGrid* grid) {
   writer->SetDataModeToAppended();
   writer->SetIdTypeToInt32();
   writer->SetHeaderTypeToUInt32();
-  writer->SetCompressorTypeToZLib();
-  writer->SetCompressionLevel(1);  // measured here: about twice as fast as the default level
+  // LZ4, read by VTK from 8.1 and ParaView from 5.5 on. Measured on the saturated phase-angle demo
+  // (36 field files of 50k nodes): 1.33 s to write against 3.16 s with zlib at level 1, for files
+  // 47 % larger; a study's field files were the largest part of its run.
+  writer->SetCompressorTypeToLZ4();
   // VTK reports a short write (a full disk) through its error code, not always through Write()'s
   // result: check both, and never rename an incomplete file to its final name.
   if (writer->Write() != 1 || writer->GetErrorCode() != vtkErrorCode::NoError) {
