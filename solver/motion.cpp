@@ -114,7 +114,8 @@ double MotionSolver::coenergy(int shift, const std::vector<double>& currents) {
   return w;
 }
 
-PositionField MotionSolver::solve(int shift, const std::vector<double>& currents, bool warm_start) {
+PositionField MotionSolver::solve(int shift, const std::vector<double>& currents, bool warm_start,
+                                  const QuantityWatch& watch) {
   Impl& s = *impl_;
   s.turn_to(shift);
   const Stopwatch clock;
@@ -127,7 +128,9 @@ PositionField MotionSolver::solve(int shift, const std::vector<double>& currents
   Eigen::VectorXd a = warm ? s.unknowns_of(s.last_field) : Eigen::VectorXd::Zero(s.dofs.n_dofs);
   PositionField out;
   out.shift = shift;
-  out.newton = s.solver.solve(f, a);
+  QuantityWatch in_unknowns;
+  if (watch) in_unknowns = [&](const Eigen::VectorXd& x) { return watch(to_nodes(s.dofs, x).col(0)); };
+  out.newton = s.solver.solve(f, a, in_unknowns);
   out.relative_residual = f.norm() > 0.0 ? out.newton.residual / f.norm() : 0.0;
   s.stats.solve_seconds += clock.seconds();
   ++s.stats.n_solves;

@@ -60,7 +60,10 @@ class MotionSolver {
   /// solution's nodal potentials in the new numbering (warm_start, after the first solve; the rotor's
   /// part stays in the rotor's frame, so it turns with the rotor) or from A = 0.
   /// Throws SolveError when Newton does not converge.
-  PositionField solve(int shift, const std::vector<double>& currents, bool warm_start = true);
+  /// watch: what the study reports of a field, from its nodal A (#nodes), for Newton's stop
+  /// (solver::QuantityWatch); none: the residual criterion alone.
+  PositionField solve(int shift, const std::vector<double>& currents, bool warm_start = true,
+                      const QuantityWatch& watch = {});
 
   /// Co-energy per metre [J/m] at rotor shift `shift` for the phase currents: a quick solve from
   /// the last solution (for virtual work at the neighbouring positions).

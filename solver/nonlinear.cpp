@@ -183,7 +183,7 @@ double NonlinearSolver::line_search(const Eigen::VectorXd& a, const Eigen::Vecto
   return alpha;
 }
 
-NewtonReport NonlinearSolver::solve(const Eigen::VectorXd& f, Eigen::VectorXd& a) {
+NewtonReport NonlinearSolver::solve(const Eigen::VectorXd& f, Eigen::VectorXd& a, const QuantityWatch& watch) {
   assert(f.size() == n_dofs_);
   NewtonReport report;
   factorized_.reset();
@@ -204,6 +204,7 @@ NewtonReport NonlinearSolver::solve(const Eigen::VectorXd& f, Eigen::VectorXd& a
   } else {
     Eigen::VectorXd r = residual(a, f);
     report.residuals.push_back(r.norm());
+    Eigen::VectorXd watched = watch ? watch(a) : Eigen::VectorXd();
     for (int it = 1; it <= controls_.max_iterations && !report.converged; ++it) {
       assemble(a, Matrix::jacobian);
       cholesky_.factorize(matrix_);
@@ -215,6 +216,12 @@ NewtonReport NonlinearSolver::solve(const Eigen::VectorXd& f, Eigen::VectorXd& a
       report.residuals.push_back(r.norm());
       report.step_lengths.push_back(alpha);
       report.converged = r.norm() <= controls_.tolerance * f_norm && report.update <= controls_.tolerance * a.norm();
+      if (watch && !report.converged) {
+        const Eigen::VectorXd now = watch(a);
+        const double moved = (now - watched).lpNorm<Eigen::Infinity>();
+        report.converged = moved <= controls_.quantity_tolerance && r.norm() <= controls_.residual_guard * f_norm;
+        watched = now;
+      }
     }
     // The factor holds the Jacobian of the last step's start, which the tolerance puts within a
     // relative 1e-5 or so of the solution's: good for small-signal (incremental) solves.

@@ -8,6 +8,7 @@
 // Sector models (mesh::Symmetry): elements honour DofMap::sign_of_node, and energy, coenergy and
 // coenergy_stationary return the whole machine's value (copies times the sector's).
 
+#include <functional>
 #include <optional>
 #include <vector>
 
@@ -39,7 +40,17 @@ struct NewtonControls {
   /// mean torques, flux linkages and iron losses by less than 6e-7 of their values.
   double tolerance = 1e-5;
   int max_iterations = 40;
+  /// With a QuantityWatch: stop once every watched value moved by at most this over the last step
+  /// (its error then is about a third of that or less, Newton converging at least linearly) and the
+  /// relative residual is within residual_guard.
+  double quantity_tolerance = 1e-4;
+  double residual_guard = 1e-3;
 };
+
+/// What an iterate reports, each value divided by its scale (e.g. flux linkages by the largest,
+/// a torque by the torques seen so far); a, the iterate's unknowns. Newton may stop once no value
+/// moved by more than NewtonControls::quantity_tolerance over a step (see NonlinearSolver::solve).
+using QuantityWatch = std::function<Eigen::VectorXd(const Eigen::VectorXd& a)>;
 
 struct NewtonReport {
   int iterations = 0;      ///< Newton steps taken (1 for a linear problem: one factorization, one solve)
@@ -74,7 +85,8 @@ class NonlinearSolver {
   /// f = 0 gives a = 0 at once. A run that does not converge returns converged = false and
   /// leaves the last iterate in a; the caller turns that into an error naming the step.
   /// Throws SolveError when a matrix cannot be factorized.
-  NewtonReport solve(const Eigen::VectorXd& f, Eigen::VectorXd& a);
+  /// With `watch`, Newton also stops on the quantities it reports (NewtonControls::quantity_tolerance).
+  NewtonReport solve(const Eigen::VectorXd& f, Eigen::VectorXd& a, const QuantityWatch& watch = {});
 
   /// A starting point for solve() after the sources or the numbering changed (the rotor turned):
   /// the linear solution with every triangle's secant reluctivity frozen at the last solution

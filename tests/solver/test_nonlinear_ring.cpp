@@ -66,7 +66,8 @@ struct RingResult {
   solver::NewtonReport report;
 };
 
-RingResult solve_ring(double current, const solver::BhCurve& iron) {
+/// watch_flux: Newton may also stop once the ring's flux (over flux_scale [Wb/m]) settled.
+RingResult solve_ring(double current, const solver::BhCurve& iron, double flux_scale = 0.0) {
   const double dr = 0.25e-3;  // 80 element layers across the 20 mm ring
   const mesh::Mesh m = testing::polar_mesh(0.0, {{0.005, 6, mesh::RegionKind::coil, "copper"},
                                                  {0.020, 15, mesh::RegionKind::gap, "air"},
@@ -77,7 +78,13 @@ RingResult solve_ring(double current, const solver::BhCurve& iron) {
   solver::NonlinearSolver s(m, d, laws);
   const Eigen::VectorXd f = solver::region_current_load(m, d, {current / mesh::region_areas(m)[0], 0, 0, 0});
   Eigen::VectorXd a = Eigen::VectorXd::Zero(d.n_dofs);
-  RingResult out{0, 0, 0, s.solve(f, a)};
+  solver::QuantityWatch watch;
+  if (flux_scale > 0.0)
+    watch = [&](const Eigen::VectorXd& x) {
+      const Eigen::VectorXd nodal = solver::to_nodes(d, x);
+      return Eigen::VectorXd::Constant(1, (ring_mean(m, nodal, 0.020) - ring_mean(m, nodal, 0.040)) / flux_scale);
+    };
+  RingResult out{0, 0, 0, s.solve(f, a, watch)};
   const Eigen::VectorXd nodal = solver::to_nodes(d, a);
   out.b_inner = b_at(layer_field(m, nodal, 0.020, 0.020 + dr), layer_field(m, nodal, 0.020 + dr, 0.020 + 2 * dr), 0.020);
   out.b_outer = b_at(layer_field(m, nodal, 0.040 - dr, 0.040), layer_field(m, nodal, 0.040 - 2 * dr, 0.040 - dr), 0.040);
@@ -134,4 +141,19 @@ TEST_CASE("nonlinear ring round a line current, I = 10000 A: deep saturation (do
   CHECK(r.b_inner == doctest::Approx(2.096757).epsilon(0.002).scale(0));
   CHECK(r.b_outer == doctest::Approx(2.043514).epsilon(0.002).scale(0));
   CHECK(r.flux == doctest::Approx(4.128901e-2).epsilon(0.002).scale(0));
+}
+
+TEST_CASE("Newton stopping on the reported quantity: fewer iterations, the flux within the stated tolerance") {
+  // The flux of the deeply saturated ring (docs/references.md §5, Ampère's law) watched: Newton stops
+  // once a step moved it by at most 1e-4 of its scale (solver::NewtonControls::quantity_tolerance).
+  const solver::BhCurve iron = solver::sampled_arctan_law(2.0, 5000.0, 150, 1e6);
+  const RingResult full = solve_ring(10000.0, iron);
+  const RingResult watched = solve_ring(10000.0, iron, 4.128901e-2);
+  MESSAGE("iterations " << watched.report.iterations << " against " << full.report.iterations << "; flux "
+                        << watched.flux << " against " << full.flux << " Wb/m");
+  REQUIRE(watched.report.converged);
+  CHECK(watched.report.iterations < full.report.iterations);
+  // Newton converges at least linearly here, so the error is below the last step's change.
+  CHECK(std::abs(watched.flux / full.flux - 1) < 1e-4);
+  CHECK(watched.flux == doctest::Approx(4.128901e-2).epsilon(0.002).scale(0));
 }
