@@ -122,7 +122,7 @@ TEST_CASE("at currents too small to saturate, Newton step by step gives the line
   REQUIRE(nonlinear_run.field.has_value());
   REQUIRE(linear_run.field.has_value());
   // Measured: 8e-5 and 1e-5 apart (the curve bends a little even at the lowest fields, and Newton
-  // stops at a relative residual of 1e-6).
+  // stops at a relative residual of 1e-5).
   CHECK(nonlinear_run.field->mean_fundamental ==
         doctest::Approx(linear_run.field->mean_fundamental).epsilon(5e-4).scale(0));
   CHECK(nonlinear_run.field->mean_distortion ==
