@@ -202,8 +202,9 @@ Page study_page(const ReportContext& x, const RunRecord& r) {
   if (r.motion && r.rotor_turns) add_torque(page, rows, *r.motion);
   if (r.motion) {
     rows.push_back({"Newton iterations per solve", num(r.motion->mean_newton_iterations, 3), ""});
+    const bool mirrored = r.motion->n_solved < static_cast<int>(r.motion->steps.size());
     rows.push_back({"Steps solved", fmt::format("{} of {}", r.motion->n_solved, r.motion->steps.size()),
-                    "the others mirror a solved step (currents reversed; odd B-H curves)"});
+                    mirrored ? "the others mirror a solved step by the field's half-period symmetry (odd B-H curves)" : ""});
   }
   if (r.field && r.field_rotates) {
     for (auto& row : field_rows(r.field->metrics, x.winding_factor)) rows.push_back(std::move(row));
